@@ -1,0 +1,46 @@
+import { z } from "zod";
+
+export const UNIT_SYSTEMS = ["us", "si"] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
+  us: "US customary (ft, in, ac, cfs)",
+  si: "SI (m, mm, ha, m³/s)",
+};
+
+/** Return periods offered for the design storm (years); the common NOAA Atlas 14 ARIs. */
+export const RETURN_PERIODS_YEARS = [1, 2, 5, 10, 25, 50, 100, 200, 500] as const;
+
+export const projectNameSchema = z
+  .string({ message: "Enter a project name." })
+  .trim()
+  .min(2, { message: "Use at least 2 characters." })
+  .max(160, { message: "Use at most 160 characters." });
+
+export const createProjectBody = z.object({
+  name: projectNameSchema,
+  description: z.string().trim().max(2000, { message: "Use at most 2000 characters." }).default(""),
+  units: z.enum(UNIT_SYSTEMS, { message: "Choose US customary or SI." }),
+  designReturnPeriodYears: z.coerce
+    .number({ message: "Choose a return period." })
+    .refine((v) => (RETURN_PERIODS_YEARS as readonly number[]).includes(v), {
+      message: `Choose one of ${RETURN_PERIODS_YEARS.join(", ")} years.`,
+    }),
+});
+export type CreateProjectBody = z.input<typeof createProjectBody>;
+
+export const updateProjectBody = createProjectBody.partial();
+export type UpdateProjectBody = z.input<typeof updateProjectBody>;
+
+export const projectSchema = z.object({
+  id: z.string(),
+  teamId: z.string(),
+  name: z.string(),
+  description: z.string(),
+  units: z.enum(UNIT_SYSTEMS),
+  designReturnPeriodYears: z.number(),
+  isDemo: z.boolean(),
+  createdBy: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Project = z.infer<typeof projectSchema>;
