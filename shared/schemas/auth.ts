@@ -4,7 +4,9 @@ import { emailSchema, passwordSchema, personNameSchema, tokenSchema } from "./co
 
 export const signInBody = z.object({
   email: emailSchema,
-  password: z.string({ message: "Enter your password." }).min(1, { message: "Enter your password." }),
+  password: z
+    .string({ message: "Enter your password." })
+    .min(1, { message: "Enter your password." }),
 });
 export type SignInBody = z.infer<typeof signInBody>;
 

@@ -16,19 +16,31 @@ export const projectNameSchema = z
   .min(2, { message: "Use at least 2 characters." })
   .max(160, { message: "Use at most 160 characters." });
 
-export const createProjectBody = z.object({
+export const projectDescriptionSchema = z
+  .string()
+  .trim()
+  .max(2000, { message: "Use at most 2000 characters." });
+
+const projectFields = {
   name: projectNameSchema,
-  description: z.string().trim().max(2000, { message: "Use at most 2000 characters." }).default(""),
+  description: projectDescriptionSchema,
   units: z.enum(UNIT_SYSTEMS, { message: "Choose US customary or SI." }),
   designReturnPeriodYears: z.coerce
     .number({ message: "Choose a return period." })
     .refine((v) => (RETURN_PERIODS_YEARS as readonly number[]).includes(v), {
       message: `Choose one of ${RETURN_PERIODS_YEARS.join(", ")} years.`,
     }),
+};
+
+export const createProjectBody = z.object({
+  ...projectFields,
+  description: projectDescriptionSchema.default(""),
 });
 export type CreateProjectBody = z.input<typeof createProjectBody>;
 
-export const updateProjectBody = createProjectBody.partial();
+// Built from the fields without the create-time default, so a PATCH that leaves the description
+// out keeps it instead of clearing it.
+export const updateProjectBody = z.object(projectFields).partial();
 export type UpdateProjectBody = z.input<typeof updateProjectBody>;
 
 export const projectSchema = z.object({

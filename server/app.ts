@@ -1,0 +1,76 @@
+import express, { type Express, type RequestHandler } from "express";
+import type session from "express-session";
+import { createRateLimiters } from "./auth/rate-limits";
+import { sessionMiddleware } from "./auth/session";
+import type { AppConfig } from "./config";
+import type { Db } from "./db/client";
+import { clientRouter } from "./http/client";
+import { apiNotFound, errorHandler } from "./http/errors";
+import { requireJsonBody, sameOriginOnly, securityHeaders } from "./http/security";
+import type { Mailer } from "./mail/mailer";
+import { accountRouter } from "./routes/account";
+import { authRouter } from "./routes/auth";
+import { configRouter } from "./routes/config";
+import type { RouteDeps } from "./routes/deps";
+import { invitationLinkRouter, teamInvitationsRouter } from "./routes/invitations";
+import { membersRouter } from "./routes/members";
+import { outboxRouter } from "./routes/outbox";
+import { projectsRouter } from "./routes/projects";
+import { teamsRouter } from "./routes/teams";
+
+export interface AppDeps {
+  db: Db;
+  sessionStore: session.Store;
+  mailer: Mailer;
+}
+
+export const JSON_BODY_LIMIT = "256kb";
+
+// API answers are per-user and change often: never cache them.
+const noStore: RequestHandler = (_req, res, next) => {
+  res.setHeader("Cache-Control", "no-store");
+  next();
+};
+
+/** The whole HTTP app: security middleware, the JSON API under /api, then the built client. */
+export function createApp(config: AppConfig, deps: AppDeps): Express {
+  const app = express();
+  app.disable("x-powered-by");
+  if (config.trustProxy) app.set("trust proxy", 1);
+
+  const routeDeps: RouteDeps = {
+    db: deps.db,
+    config,
+    mailer: deps.mailer,
+    limiters: createRateLimiters(config),
+  };
+
+  const api = express.Router();
+  api.use(noStore);
+  api.use(sameOriginOnly(config.publicBaseUrl));
+  api.use(requireJsonBody);
+  api.use(
+    express.json({ limit: JSON_BODY_LIMIT, type: ["application/json", "application/*+json"] }),
+  );
+  api.use(sessionMiddleware(config, deps.sessionStore));
+  for (const router of [
+    configRouter,
+    authRouter,
+    accountRouter,
+    invitationLinkRouter,
+    teamsRouter,
+    membersRouter,
+    teamInvitationsRouter,
+    projectsRouter,
+    outboxRouter,
+  ]) {
+    api.use(router(routeDeps));
+  }
+  api.use(apiNotFound);
+
+  app.use(securityHeaders(config.publicBaseUrl));
+  app.use("/api", api);
+  app.use(clientRouter(config.clientDist));
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,172 @@
+import { z } from "zod";
+
+/** The development secret. Fine on a laptop; production refuses to start with it. */
+export const DEFAULT_SESSION_SECRET = "rillmark-local-development-secret-change-me";
+
+const flag = (fallback: boolean) =>
+  z
+    .enum(["true", "false", "1", "0", "yes", "no", "on", "off"], {
+      message: "Use true or false.",
+    })
+    .optional()
+    .transform((v) => (v === undefined ? fallback : ["true", "1", "yes", "on"].includes(v)));
+
+const port = (fallback: number) =>
+  z.coerce
+    .number({ message: "Use a port number." })
+    .int({ message: "Use a whole number." })
+    .min(0, { message: "Use 0 to 65535." })
+    .max(65535, { message: "Use 0 to 65535." })
+    .default(fallback);
+
+const count = (fallback: number) =>
+  z.coerce
+    .number({ message: "Use a whole number." })
+    .int({ message: "Use a whole number." })
+    .min(1, { message: "Use at least 1." })
+    .default(fallback);
+
+const optionalText = z
+  .string()
+  .optional()
+  .transform((v) => (v === undefined || v.trim() === "" ? undefined : v.trim()));
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  PORT: port(5180),
+  HOST: z.string().min(1).default("127.0.0.1"),
+  DATABASE_URL: z
+    .string({ message: "Set DATABASE_URL (npm start sets it for the local database)." })
+    .regex(/^postgres(ql)?:\/\//, { message: "Use a postgres:// connection URL." }),
+  SESSION_SECRET: z.string().min(1).default(DEFAULT_SESSION_SECRET),
+  PUBLIC_BASE_URL: optionalText.pipe(
+    z.url({ protocol: /^https?$/, message: "Use an http:// or https:// URL." }).optional(),
+  ),
+  TRUST_PROXY: flag(false),
+  SIGNUP_ENABLED: flag(true),
+  SMTP_HOST: optionalText,
+  SMTP_PORT: port(587),
+  SMTP_SECURE: flag(false),
+  SMTP_USER: optionalText,
+  SMTP_PASS: optionalText,
+  MAIL_FROM: z.string().min(3).default("Rillmark <no-reply@rillmark.localhost>"),
+  FAKE_SMTP_PORT: port(0),
+  CLIENT_DIST: z.string().min(1).default("dist/client"),
+  RATE_LIMIT_WINDOW_MINUTES: count(15),
+  SIGN_IN_LIMIT_PER_ACCOUNT: count(10),
+  SIGN_IN_LIMIT_PER_IP: count(50),
+  EMAIL_LIMIT_PER_IP: count(20),
+  EMAIL_LIMIT_PER_ADDRESS: count(5),
+  SESSION_MAX_AGE_HOURS: count(24 * 14),
+});
+
+/** Every environment variable Rillmark reads (.env.example documents each one). */
+export const ENV_VARIABLES = Object.keys(envSchema.shape);
+
+export interface Config {
+  nodeEnv: "development" | "production" | "test";
+  port: number;
+  host: string;
+  databaseUrl: string;
+  sessionSecret: string;
+  /** Undefined means "the address the server listens on" (resolved once it listens). */
+  publicBaseUrl: string | undefined;
+  trustProxy: boolean;
+  signUpEnabled: boolean;
+  smtp: {
+    host: string | undefined;
+    port: number;
+    secure: boolean;
+    user: string | undefined;
+    pass: string | undefined;
+  };
+  mailFrom: string;
+  fakeSmtpPort: number;
+  clientDist: string;
+  outboxEnabled: boolean;
+  rateLimits: {
+    windowMs: number;
+    signInPerAccount: number;
+    signInPerIp: number;
+    emailPerIp: number;
+    emailPerAddress: number;
+  };
+  sessionMaxAgeMs: number;
+}
+
+/** A config whose public address is known; what the HTTP app needs. */
+export type AppConfig = Config & { publicBaseUrl: string };
+
+export class ConfigError extends Error {
+  override name = "ConfigError";
+}
+
+/** Parse the environment once at boot. Throws ConfigError with every problem listed. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new ConfigError(`Rillmark cannot start; fix these settings:\n${lines.join("\n")}`);
+  }
+  const e = parsed.data;
+  const config: Config = {
+    nodeEnv: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    databaseUrl: e.DATABASE_URL,
+    sessionSecret: e.SESSION_SECRET,
+    publicBaseUrl: e.PUBLIC_BASE_URL?.replace(/\/+$/, ""),
+    trustProxy: e.TRUST_PROXY,
+    signUpEnabled: e.SIGNUP_ENABLED,
+    smtp: {
+      host: e.SMTP_HOST,
+      port: e.SMTP_PORT,
+      secure: e.SMTP_SECURE,
+      user: e.SMTP_USER,
+      pass: e.SMTP_PASS,
+    },
+    mailFrom: e.MAIL_FROM,
+    fakeSmtpPort: e.FAKE_SMTP_PORT,
+    clientDist: e.CLIENT_DIST,
+    outboxEnabled: e.NODE_ENV !== "production",
+    rateLimits: {
+      windowMs: e.RATE_LIMIT_WINDOW_MINUTES * 60_000,
+      signInPerAccount: e.SIGN_IN_LIMIT_PER_ACCOUNT,
+      signInPerIp: e.SIGN_IN_LIMIT_PER_IP,
+      emailPerIp: e.EMAIL_LIMIT_PER_IP,
+      emailPerAddress: e.EMAIL_LIMIT_PER_ADDRESS,
+    },
+    sessionMaxAgeMs: e.SESSION_MAX_AGE_HOURS * 3_600_000,
+  };
+  assertSafeForProduction(config);
+  return config;
+}
+
+/** Production must not run with guessable secrets or without a real mail server. */
+export function assertSafeForProduction(config: Config): void {
+  if (config.nodeEnv !== "production") return;
+  if (config.sessionSecret === DEFAULT_SESSION_SECRET || config.sessionSecret.length < 32) {
+    throw new ConfigError(
+      "Rillmark refuses to start in production with the default or a short SESSION_SECRET. " +
+        "Set SESSION_SECRET to a random value of at least 32 characters " +
+        "(for example: node -e \"console.log(crypto.randomBytes(32).toString('base64url'))\").",
+    );
+  }
+  if (!config.smtp.host) {
+    throw new ConfigError(
+      "Rillmark needs SMTP_HOST in production: invitations and password resets are e-mailed.",
+    );
+  }
+}
+
+/** The address links in e-mails point at; derived from the listening address when not set. */
+export function resolvePublicBaseUrl(config: Config, listeningPort: number): string {
+  if (config.publicBaseUrl) return config.publicBaseUrl;
+  const anyHost = config.host === "0.0.0.0" || config.host === "::";
+  const host = anyHost ? "127.0.0.1" : config.host.includes(":") ? `[${config.host}]` : config.host;
+  return `http://${host}:${listeningPort}`;
+}
+
+export function publicConfig(config: Config): { signUpEnabled: boolean; outboxEnabled: boolean } {
+  return { signUpEnabled: config.signUpEnabled, outboxEnabled: config.outboxEnabled };
+}

@@ -1,0 +1,26 @@
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import pg from "pg";
+import * as schema from "./schema";
+
+export type Db = NodePgDatabase<typeof schema>;
+/** The handle inside `db.transaction(async (tx) => …)`. */
+export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+/** Query helpers take either, so they compose inside a caller's transaction. */
+export type DbOrTx = Db | Tx;
+
+export interface Database {
+  pool: pg.Pool;
+  db: Db;
+}
+
+export function connectDatabase(databaseUrl: string, max = 10): Database {
+  const pool = new pg.Pool({ connectionString: databaseUrl, max });
+  // An idle client losing its connection (database restart) must not crash the process.
+  pool.on("error", (err) => console.error("PostgreSQL pool error:", err.message));
+  return { pool, db: drizzle(pool, { schema }) };
+}
+
+/** The database name of a connection URL (used to refuse running tests on a real database). */
+export function databaseName(databaseUrl: string): string {
+  return decodeURIComponent(new URL(databaseUrl).pathname.replace(/^\//, ""));
+}

@@ -1,0 +1,81 @@
+import type { ErrorRequestHandler, RequestHandler } from "express";
+import type { ApiError } from "../../shared/schemas/common";
+
+/** An error with a status and code the client can act on; thrown anywhere in a handler. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = "HttpError";
+  }
+  toJSON(): { error: ApiError } {
+    return {
+      error: {
+        code: this.code,
+        message: this.message,
+        ...(this.fields && { fields: this.fields }),
+      },
+    };
+  }
+}
+
+export const unauthenticated = () => new HttpError(401, "unauthenticated", "Sign in to continue.");
+export const forbidden = (message = "Your role in this team does not allow this.") =>
+  new HttpError(403, "forbidden", message);
+export const notFound = (what = "This item") =>
+  new HttpError(404, "not_found", `${what} was not found, or you do not have access to it.`);
+export const linkExpired = () =>
+  new HttpError(
+    410,
+    "link_expired",
+    "This link has expired or has already been used. Ask for a new one.",
+  );
+export const invalidInput = (
+  fields: Record<string, string>,
+  message = "Check the marked fields.",
+) => new HttpError(422, "invalid_input", message, fields);
+
+/** Errors body-parser raises, by their `type`, mapped to our shape. */
+const BODY_ERRORS: Record<string, HttpError> = {
+  "entity.parse.failed": new HttpError(400, "invalid_json", "The request body is not valid JSON."),
+  "entity.too.large": new HttpError(413, "payload_too_large", "The request body is too large."),
+  "encoding.unsupported": new HttpError(415, "unsupported_encoding", "Unsupported body encoding."),
+  "charset.unsupported": new HttpError(415, "unsupported_charset", "Send the body as UTF-8."),
+};
+
+function bodyParserError(err: unknown): HttpError | undefined {
+  if (typeof err !== "object" || err === null || !("type" in err)) return undefined;
+  const type = (err as { type: unknown }).type;
+  return typeof type === "string" ? BODY_ERRORS[type] : undefined;
+}
+
+export const apiNotFound: RequestHandler = (req) => {
+  throw new HttpError(404, "not_found", `There is no API route ${req.method} ${req.path}.`);
+};
+
+/** The last middleware: our shape for every failure, never a stack trace in the answer. */
+export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) => {
+  if (res.headersSent) {
+    next(err);
+    return;
+  }
+  const known = err instanceof HttpError ? err : bodyParserError(err);
+  if (known) {
+    res.status(known.status).json(known.toJSON());
+    return;
+  }
+  console.error(`Unhandled error on ${req.method} ${req.originalUrl}:`, err);
+  res
+    .status(500)
+    .json(
+      new HttpError(
+        500,
+        "internal_error",
+        "Something went wrong on the server. Try again.",
+      ).toJSON(),
+    );
+};

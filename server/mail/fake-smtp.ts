@@ -1,0 +1,76 @@
+import type { AddressInfo } from "node:net";
+import type { Readable } from "node:stream";
+import { simpleParser, type AddressObject } from "mailparser";
+import { SMTPServer } from "smtp-server";
+import type { Db } from "../db/client";
+import { outboxMessages } from "../db/schema";
+
+export interface FakeSmtp {
+  port: number;
+  close(): Promise<void>;
+}
+
+const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
+
+async function readAll(stream: Readable): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of stream) chunks.push(Buffer.from(chunk as Uint8Array));
+  return Buffer.concat(chunks);
+}
+
+function addressText(value: AddressObject | AddressObject[] | undefined): string {
+  if (!value) return "";
+  return (Array.isArray(value) ? value : [value]).map((a) => a.text).join(", ");
+}
+
+/**
+ * A mail server on loopback that keeps every message in outbox_messages, so development and
+ * tests send real SMTP without any mail leaving the machine. Read it on the Outbox page.
+ */
+export async function startFakeSmtp(db: Db, port = 0): Promise<FakeSmtp> {
+  const server = new SMTPServer({
+    name: "rillmark-outbox.localhost",
+    banner: "Rillmark local outbox (nothing is delivered)",
+    authOptional: true,
+    allowInsecureAuth: true,
+    disabledCommands: ["STARTTLS"],
+    size: MAX_MESSAGE_BYTES,
+    logger: false,
+    onAuth(auth, _session, callback) {
+      callback(null, { user: auth.username ?? "local" });
+    },
+    onData(stream, session, callback) {
+      const store = async () => {
+        const raw = await readAll(stream);
+        if ((stream as Readable & { sizeExceeded?: boolean }).sizeExceeded) {
+          throw Object.assign(new Error("Message too large"), { responseCode: 552 });
+        }
+        const parsed = await simpleParser(raw);
+        // The envelope says who the message was actually delivered to; headers can differ.
+        const to = session.envelope.rcptTo.map((r) => r.address.toLowerCase()).join(", ");
+        const mailFrom = session.envelope.mailFrom;
+        await db.insert(outboxMessages).values({
+          to: to || addressText(parsed.to),
+          from: addressText(parsed.from) || (mailFrom ? mailFrom.address : ""),
+          subject: parsed.subject ?? "",
+          text: parsed.text ?? "",
+          html: typeof parsed.html === "string" ? parsed.html : null,
+          raw: raw.toString("utf8"),
+        });
+      };
+      store().then(
+        () => callback(),
+        (err: unknown) => callback(err instanceof Error ? err : new Error(String(err))),
+      );
+    },
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.server.once("error", reject);
+    server.listen(port, "127.0.0.1", () => resolve());
+  });
+  const address = server.server.address() as AddressInfo;
+  return {
+    port: address.port,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}

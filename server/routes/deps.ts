@@ -1,0 +1,23 @@
+import type { RateLimiters } from "../auth/rate-limits";
+import type { AppConfig } from "../config";
+import type { Db } from "../db/client";
+import type { Mailer } from "../mail/mailer";
+import type { MailContent } from "../mail/templates";
+
+/** What every router is built from. */
+export interface RouteDeps {
+  db: Db;
+  config: AppConfig;
+  mailer: Mailer;
+  limiters: RateLimiters;
+}
+
+/**
+ * Send without making the caller wait. Used where the answer must not depend on whether an
+ * account exists (sign-up, reset): both paths then answer in the same time.
+ */
+export function sendInBackground(mailer: Mailer, to: string, content: MailContent): void {
+  mailer.send(to, content).catch((err: unknown) => {
+    console.error(`Could not send "${content.subject}":`, err instanceof Error ? err.message : err);
+  });
+}

@@ -1,0 +1,189 @@
+import { randomUUID } from "node:crypto";
+import { and, desc, eq, gte } from "drizzle-orm";
+import type { Express } from "express";
+import type pg from "pg";
+import supertest from "supertest";
+import { createApp } from "../../server/app";
+import { hashPassword } from "../../server/auth/password";
+import { createSessionStore, SESSION_COOKIE } from "../../server/auth/session";
+import { loadConfig, type AppConfig } from "../../server/config";
+import { connectDatabase, type Db } from "../../server/db/client";
+import { memberships, outboxMessages, teams, users } from "../../server/db/schema";
+import { startFakeSmtp, type FakeSmtp } from "../../server/mail/fake-smtp";
+import { createMailer } from "../../server/mail/mailer";
+import { ROLES, type Role } from "../../shared/roles";
+
+/** The origin test apps believe they are served from (what browsers would send as Origin). */
+export const TEST_ORIGIN = "http://127.0.0.1:5180";
+export const TEST_PASSWORD = "correct-horse-battery";
+
+export type Agent = ReturnType<typeof supertest.agent>;
+
+export interface TestApp {
+  app: Express;
+  db: Db;
+  pool: pg.Pool;
+  config: AppConfig;
+  smtp: FakeSmtp;
+  /** A cookie-keeping client that sends our Origin, like the real client in a browser. */
+  agent(): Agent;
+  close(): Promise<void>;
+}
+
+function databaseUrl(): string {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error("DATABASE_URL is not set: run `npm test`.");
+  return url;
+}
+
+/** A config for tests: limits high enough not to get in the way unless a test lowers them. */
+export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
+  const base = loadConfig({ DATABASE_URL: databaseUrl(), NODE_ENV: "test" });
+  return {
+    ...base,
+    publicBaseUrl: TEST_ORIGIN,
+    clientDist: "tests/support/no-client-build",
+    rateLimits: {
+      windowMs: 15 * 60_000,
+      signInPerAccount: 1000,
+      signInPerIp: 1000,
+      emailPerIp: 1000,
+      emailPerAddress: 1000,
+    },
+    ...overrides,
+  };
+}
+
+/** The real app on the real test database, with its own fake SMTP server on a random port. */
+export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
+  const config = testConfig(overrides);
+  const { pool, db } = connectDatabase(config.databaseUrl, 5);
+  const smtp = await startFakeSmtp(db, 0);
+  const mailer = createMailer(
+    {
+      host: "127.0.0.1",
+      port: smtp.port,
+      secure: false,
+      user: undefined,
+      pass: undefined,
+      requireTls: false,
+    },
+    config.mailFrom,
+  );
+  const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
+  const app = createApp(config, { db, sessionStore, mailer });
+  return {
+    app,
+    db,
+    pool,
+    config,
+    smtp,
+    agent: () => supertest.agent(app).set("Origin", config.publicBaseUrl),
+    async close() {
+      sessionStore.close();
+      await mailer.close();
+      await smtp.close();
+      if (!pool.ending) await pool.end();
+    },
+  };
+}
+
+export interface TestUser {
+  id: string;
+  email: string;
+  name: string;
+  password: string;
+}
+
+let passwordHash: Promise<string> | undefined;
+
+/** A unique address per call, so test files never see each other's rows. */
+export function uniqueEmail(tag: string): string {
+  return `${tag}-${randomUUID().slice(0, 8)}@example.test`;
+}
+
+export async function createUser(db: Db, tag: string, name = `Test ${tag}`): Promise<TestUser> {
+  passwordHash ??= hashPassword(TEST_PASSWORD);
+  const email = uniqueEmail(tag);
+  const [row] = await db
+    .insert(users)
+    .values({ email, name, passwordHash: await passwordHash })
+    .returning({ id: users.id });
+  if (!row) throw new Error("user insert returned no row");
+  return { id: row.id, email, name, password: TEST_PASSWORD };
+}
+
+export interface TestTeam {
+  id: string;
+  name: string;
+  members: Record<Role, TestUser>;
+}
+
+/** A team with one member per role (directly in the database). */
+export async function createTeam(db: Db, tag: string): Promise<TestTeam> {
+  const name = `Team ${tag} ${randomUUID().slice(0, 6)}`;
+  const [team] = await db.insert(teams).values({ name }).returning({ id: teams.id });
+  if (!team) throw new Error("team insert returned no row");
+  const members = {} as Record<Role, TestUser>;
+  for (const role of ROLES) {
+    const user = await createUser(db, `${tag}-${role}`, `${role} of ${tag}`);
+    await addMember(db, team.id, user.id, role);
+    members[role] = user;
+  }
+  return { id: team.id, name, members };
+}
+
+export async function addMember(db: Db, teamId: string, userId: string, role: Role) {
+  await db.insert(memberships).values({ teamId, userId, role });
+}
+
+export async function signIn(agent: Agent, user: Pick<TestUser, "email" | "password">) {
+  const res = await agent
+    .post("/api/auth/sign-in")
+    .send({ email: user.email, password: user.password });
+  if (res.status !== 200) throw new Error(`sign-in of ${user.email} answered ${res.status}`);
+  return res;
+}
+
+/** The session id in a response's Set-Cookie (undefined when the response set none). */
+export function sessionCookie(res: supertest.Response): string | undefined {
+  const raw = res.headers["set-cookie"] as string[] | string | undefined;
+  const list = raw === undefined ? [] : Array.isArray(raw) ? raw : [raw];
+  return list.find((c) => c.startsWith(`${SESSION_COOKIE}=`));
+}
+
+export type OutboxRow = typeof outboxMessages.$inferSelect;
+
+/** The newest message the fake SMTP server stored for `to`; waits for it (mail is async). */
+export async function latestMailTo(
+  db: Db,
+  to: string,
+  options: { since?: Date; timeoutMs?: number } = {},
+): Promise<OutboxRow> {
+  const deadline = Date.now() + (options.timeoutMs ?? 5000);
+  const since = options.since ?? new Date(0);
+  for (;;) {
+    const [row] = await db
+      .select()
+      .from(outboxMessages)
+      .where(and(eq(outboxMessages.to, to.toLowerCase()), gte(outboxMessages.receivedAt, since)))
+      .orderBy(desc(outboxMessages.receivedAt))
+      .limit(1);
+    if (row) return row;
+    if (Date.now() > deadline) throw new Error(`no mail to ${to} arrived in the fake outbox`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+/** Every message stored for `to` (to prove one was *not* sent). */
+export async function mailsTo(db: Db, to: string): Promise<OutboxRow[]> {
+  return db.select().from(outboxMessages).where(eq(outboxMessages.to, to.toLowerCase()));
+}
+
+/** The token of the first `${origin}${path}/<token>` link in a message's text. */
+export function tokenFromMail(mail: OutboxRow, path: string, origin = TEST_ORIGIN): string {
+  const escaped = `${origin}${path}/`.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+  const match = new RegExp(`${escaped}([A-Za-z0-9_-]+)`).exec(mail.text);
+  if (!match?.[1]) throw new Error(`no ${path} link in mail "${mail.subject}"`);
+  return match[1];
+}

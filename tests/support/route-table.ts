@@ -1,0 +1,229 @@
+import { randomBytes } from "node:crypto";
+import { hashToken } from "../../server/auth/tokens";
+import type { Db } from "../../server/db/client";
+import { invitations, outboxMessages, projects } from "../../server/db/schema";
+import type { Role } from "../../shared/roles";
+import { addMember, createUser, TEST_PASSWORD, uniqueEmail, type TestTeam } from "./app";
+
+/** The objects a route case acts on: one team (one member per role) with one project. */
+export interface RouteFixture {
+  db: Db;
+  team: TestTeam;
+  projectId: string;
+  outboxId: string;
+}
+
+export type Caller = Role | "anonymous";
+
+export interface RouteCase {
+  method: "get" | "post" | "patch" | "delete";
+  /** The route as the API contract writes it. */
+  route: string;
+  /** Team and project routes must answer 404 to members of other teams. */
+  teamScoped: boolean;
+  /** Builds the concrete request; destructive cases make a fresh target each time. */
+  prepare(f: RouteFixture): Promise<{ path: string; body?: object }>;
+  expected: Record<Caller, number>;
+}
+
+const table = (
+  owner: number,
+  admin: number,
+  engineer: number,
+  gis: number,
+  reviewer: number,
+  viewer: number,
+): Record<Caller, number> => ({ owner, admin, engineer, gis, reviewer, viewer, anonymous: 401 });
+
+async function freshMember(f: RouteFixture): Promise<string> {
+  const user = await createUser(f.db, "route-target");
+  await addMember(f.db, f.team.id, user.id, "viewer");
+  return user.id;
+}
+
+async function freshInvitation(f: RouteFixture): Promise<string> {
+  const [row] = await f.db
+    .insert(invitations)
+    .values({
+      teamId: f.team.id,
+      email: uniqueEmail("route-invite"),
+      role: "viewer",
+      tokenHash: hashToken(randomBytes(32).toString("base64url")),
+      invitedBy: f.team.members.owner.id,
+      expiresAt: new Date(Date.now() + 3_600_000),
+    })
+    .returning({ id: invitations.id });
+  if (!row) throw new Error("invitation insert returned no row");
+  return row.id;
+}
+
+export async function freshProject(db: Db, teamId: string): Promise<string> {
+  const [row] = await db
+    .insert(projects)
+    .values({ teamId, name: "Route test project", units: "si", designReturnPeriodYears: 10 })
+    .returning({ id: projects.id });
+  if (!row) throw new Error("project insert returned no row");
+  return row.id;
+}
+
+export async function outboxFixture(db: Db): Promise<string> {
+  const [row] = await db
+    .insert(outboxMessages)
+    .values({
+      to: uniqueEmail("route-mail"),
+      from: "x@example.test",
+      subject: "s",
+      text: "t",
+      raw: "r",
+    })
+    .returning({ id: outboxMessages.id });
+  if (!row) throw new Error("outbox insert returned no row");
+  return row.id;
+}
+
+const project = { name: "Culvert study", units: "us", designReturnPeriodYears: 10 };
+
+/** Every API route that needs a signed-in caller, with the status each role must get. */
+export const ROUTE_CASES: RouteCase[] = [
+  {
+    method: "get",
+    route: "/api/auth/me",
+    teamScoped: false,
+    prepare: async () => ({ path: "/api/auth/me" }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "get",
+    route: "/api/account",
+    teamScoped: false,
+    prepare: async () => ({ path: "/api/account" }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "patch",
+    route: "/api/account",
+    teamScoped: false,
+    prepare: async () => ({ path: "/api/account", body: { name: "Renamed by the route table" } }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "post",
+    route: "/api/account/password",
+    teamScoped: false,
+    // Same password again: the route runs fully, and later sign-ins still work.
+    prepare: async () => ({
+      path: "/api/account/password",
+      body: { currentPassword: TEST_PASSWORD, newPassword: TEST_PASSWORD },
+    }),
+    expected: table(204, 204, 204, 204, 204, 204),
+  },
+  {
+    method: "get",
+    route: "/api/teams/:teamId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "get",
+    route: "/api/teams/:teamId/members",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}/members` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "patch",
+    route: "/api/teams/:teamId/members/:userId",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/teams/${f.team.id}/members/${await freshMember(f)}`,
+      body: { role: "reviewer" },
+    }),
+    expected: table(200, 200, 403, 403, 403, 403),
+  },
+  {
+    method: "delete",
+    route: "/api/teams/:teamId/members/:userId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}/members/${await freshMember(f)}` }),
+    expected: table(204, 204, 403, 403, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/teams/:teamId/invitations",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}/invitations` }),
+    expected: table(200, 200, 403, 403, 403, 403),
+  },
+  {
+    method: "post",
+    route: "/api/teams/:teamId/invitations",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/teams/${f.team.id}/invitations`,
+      body: { email: uniqueEmail("route-invitee"), role: "viewer" },
+    }),
+    expected: table(201, 201, 403, 403, 403, 403),
+  },
+  {
+    method: "delete",
+    route: "/api/teams/:teamId/invitations/:invitationId",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/teams/${f.team.id}/invitations/${await freshInvitation(f)}`,
+    }),
+    expected: table(204, 204, 403, 403, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/teams/:teamId/projects",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}/projects` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "post",
+    route: "/api/teams/:teamId/projects",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/teams/${f.team.id}/projects`, body: project }),
+    expected: table(201, 201, 201, 403, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/projects/:projectId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/projects/${f.projectId}` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "patch",
+    route: "/api/projects/:projectId",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/projects/${f.projectId}`,
+      body: { description: "Updated by the route table." },
+    }),
+    expected: table(200, 200, 200, 403, 403, 403),
+  },
+  {
+    method: "delete",
+    route: "/api/projects/:projectId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/projects/${await freshProject(f.db, f.team.id)}` }),
+    expected: table(204, 204, 403, 403, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/outbox",
+    teamScoped: false,
+    prepare: async () => ({ path: "/api/outbox" }),
+    expected: table(200, 200, 404, 404, 404, 404),
+  },
+  {
+    method: "get",
+    route: "/api/outbox/:id",
+    teamScoped: false,
+    prepare: async (f) => ({ path: `/api/outbox/${f.outboxId}` }),
+    expected: table(200, 200, 404, 404, 404, 404),
+  },
+];
