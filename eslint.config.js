@@ -10,7 +10,10 @@ export default tseslint.config(
   {
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
     rules: {
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_" },
+      ],
       "@typescript-eslint/consistent-type-imports": ["error", { fixStyle: "inline-type-imports" }],
     },
   },
@@ -30,9 +33,18 @@ export default tseslint.config(
         "error",
         {
           patterns: [
-            { group: ["**/src/**", "../src/*", "../../src/*"], message: "shared/ must not import src/." },
-            { group: ["**/server/**", "../server/*", "../../server/*"], message: "shared/ must not import server/." },
-            { group: ["node:*", "fs", "path", "child_process"], message: "shared/ is isomorphic: no Node built-ins." },
+            {
+              group: ["**/src/**", "../src/*", "../../src/*"],
+              message: "shared/ must not import src/.",
+            },
+            {
+              group: ["**/server/**", "../server/*", "../../server/*"],
+              message: "shared/ must not import server/.",
+            },
+            {
+              group: ["node:*", "fs", "path", "child_process"],
+              message: "shared/ is isomorphic: no Node built-ins.",
+            },
           ],
         },
       ],

@@ -1,0 +1,16 @@
+/**
+ * `npm run bench`: runs every benchmark suite and prints one table. Suites measure; they never
+ * fail the build on time (targets are printed beside the measurement for a human to judge).
+ */
+import { run as hydrology } from "./hydrology";
+import { formatTable, type BenchRow } from "./table";
+
+const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
+  { name: "engineering core", run: hydrology },
+];
+
+const rows: Array<BenchRow & { suite: string }> = [];
+for (const suite of suites) {
+  for (const row of await suite.run()) rows.push({ ...row, suite: suite.name });
+}
+console.log(formatTable(rows));
