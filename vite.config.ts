@@ -15,13 +15,16 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["shared/**/*.test.ts", "src/**/*.test.{ts,tsx}"] },
+        test: {
+          name: "unit",
+          include: ["shared/**/*.test.ts", "src/**/*.test.{ts,tsx}", "tests/cli/**/*.test.ts"],
+        },
       },
       {
         extends: true,
         test: {
           name: "integration",
-          include: ["tests/integration/**/*.test.ts", "tests/cli/**/*.test.ts"],
+          include: ["tests/integration/**/*.test.ts"],
           globalSetup: ["tests/support/global-setup.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,

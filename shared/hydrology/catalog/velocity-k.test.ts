@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { M_PER_FT, VELOCITY_K, velocityKRow } from "./velocity-k";
+import { M_PER_FT } from "../units";
+import { VELOCITY_K, velocityKRow } from "./velocity-k";
 
 /** Decimal places of a number as written in the data (the precision the document prints). */
 function decimalsOf(x: number): number {

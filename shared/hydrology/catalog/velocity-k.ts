@@ -7,10 +7,8 @@
  * tabulated n and hydraulic radius r: k = (1.486/n)·r^(2/3). The published coefficients are kept
  * verbatim (they use 1.486, not 1.49).
  */
+import { M_PER_FT } from "../units";
 import { type VelocityKRow, type VelocityKTable } from "./types";
-
-/** Metres per international foot, exact by definition (1959 agreement). */
-export const M_PER_FT = 0.3048;
 
 const NEH = "NEH Part 630 Ch 15 (2010) Table 15-3 [from memory]";
 const TR55 = "TR-55 (1986) Figure 3-1 and Appendix F [from memory]";

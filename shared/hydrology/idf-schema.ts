@@ -1,0 +1,169 @@
+/**
+ * zod schema of the rainfall block: the 2-year 24-hour depth and the IDF data, either a table
+ * (durations × return periods, as intensity or depth) or Sherman formulas keyed by return
+ * period. A table must be physically consistent, or it is refused with the offending cell:
+ * durations and return periods strictly increasing, intensity not rising with duration, depth
+ * not falling with duration, and neither falling with return period.
+ */
+import { z } from "zod";
+
+// Upper bounds keep every result finite; they are far beyond any real rainfall.
+const positive = (what: string, max = 1e6) =>
+  z
+    .number()
+    .positive(`${what} must be greater than 0`)
+    .max(max, `${what} must be at most ${max.toLocaleString("en-US")}`);
+
+const tableSchema = z
+  .strictObject({
+    kind: z.literal("table"),
+    durationsMin: z.array(positive("a duration")).min(2, "needs at least 2 durations"),
+    returnPeriodsYears: z.array(positive("a return period")).min(1, "needs a return period"),
+    intensity: z.array(z.array(positive("an intensity"))).optional(),
+    depth: z.array(z.array(positive("a depth"))).optional(),
+    note: z.string().optional(),
+    source: z.string().optional(),
+  })
+  .superRefine((table, ctx) => {
+    for (const problem of tableProblems(table)) ctx.addIssue({ code: "custom", ...problem });
+  });
+
+const shermanSchema = z.strictObject({
+  a: positive("a", 1e9),
+  b: z.number().min(0, "b must be at least 0").max(1e4, "b must be at most 10,000"),
+  c: z.number().gt(0, "c must be greater than 0").lt(2, "c must be less than 2"),
+});
+
+const formulaSchema = z
+  .strictObject({
+    kind: z.literal("formula"),
+    formula: z.record(z.string(), shermanSchema),
+    note: z.string().optional(),
+    source: z.string().optional(),
+  })
+  .superRefine((value, ctx) => {
+    const keys = Object.keys(value.formula);
+    if (keys.length === 0) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["formula"],
+        message: "needs at least one return period",
+      });
+    }
+    for (const key of keys) {
+      const years = Number(key);
+      if (!(Number.isFinite(years) && years > 0)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["formula", key],
+          message: 'keys must be return periods in years, e.g. "25"',
+        });
+      }
+    }
+  });
+
+function inferKind(value: unknown): unknown {
+  if (typeof value !== "object" || value === null || Array.isArray(value) || "kind" in value) {
+    return value;
+  }
+  return { ...value, kind: "formula" in value ? "formula" : "table" };
+}
+
+export const idfSchema = z.preprocess(
+  inferKind,
+  z.discriminatedUnion("kind", [tableSchema, formulaSchema], {
+    error: "must be a table (durationsMin, returnPeriodsYears, intensity) or { formula }",
+  }),
+);
+
+export const rainfallSchema = z.strictObject({
+  p2_24h: positive("the 2-year 24-hour depth").optional(),
+  idf: idfSchema,
+  note: z.string().optional(),
+  source: z.string().optional(),
+});
+
+export type IdfInput = z.output<typeof idfSchema>;
+export type RainfallInput = z.output<typeof rainfallSchema>;
+
+interface Problem {
+  readonly path: Array<string | number>;
+  readonly message: string;
+}
+
+type TableShape = {
+  durationsMin: number[];
+  returnPeriodsYears: number[];
+  intensity?: number[][] | undefined;
+  depth?: number[][] | undefined;
+};
+
+function increasing(values: number[], key: string, what: string): Problem[] {
+  const out: Problem[] = [];
+  for (let j = 1; j < values.length; j += 1) {
+    if (!((values[j] ?? 0) > (values[j - 1] ?? 0))) {
+      out.push({ path: [key, j], message: `${what} must increase strictly` });
+    }
+  }
+  return out;
+}
+
+const TOL = 1e-12;
+
+function tableProblems(table: TableShape): Problem[] {
+  const { durationsMin: d, returnPeriodsYears: periods } = table;
+  if (table.intensity !== undefined && table.depth !== undefined) {
+    return [{ path: ["depth"], message: "give intensity or depth, not both" }];
+  }
+  const key = table.depth !== undefined ? "depth" : "intensity";
+  const rows = table.depth ?? table.intensity;
+  if (rows === undefined) {
+    return [
+      {
+        path: ["intensity"],
+        message: "is required: one row per duration, one value per return period",
+      },
+    ];
+  }
+  const problems = [
+    ...increasing(d, "durationsMin", "durations"),
+    ...increasing(periods, "returnPeriodsYears", "return periods"),
+  ];
+  if (rows.length !== d.length) {
+    problems.push({
+      path: [key],
+      message: `has ${rows.length} rows; durationsMin has ${d.length}`,
+    });
+  }
+  rows.forEach((row, r) => {
+    if (row.length !== periods.length) {
+      problems.push({
+        path: [key, r],
+        message: `has ${row.length} values; returnPeriodsYears has ${periods.length}`,
+      });
+    }
+  });
+  if (problems.length > 0) return problems;
+  const value = (r: number, c: number): number => rows[r]?.[c] ?? Number.NaN;
+  const intensity = (r: number, c: number): number =>
+    key === "depth" ? (value(r, c) * 60) / (d[r] ?? Number.NaN) : value(r, c);
+  for (let r = 0; r < rows.length; r += 1) {
+    for (let c = 0; c < periods.length; c += 1) {
+      if (r > 0) {
+        const i0 = intensity(r - 1, c);
+        const i1 = intensity(r, c);
+        const depth0 = (i0 * (d[r - 1] ?? 0)) / 60;
+        const depth1 = (i1 * (d[r] ?? 0)) / 60;
+        if (i1 > i0 * (1 + TOL)) {
+          problems.push({ path: [key, r, c], message: "intensity must not rise with duration" });
+        } else if (depth1 < depth0 * (1 - TOL)) {
+          problems.push({ path: [key, r, c], message: "depth must not fall with duration" });
+        }
+      }
+      if (c > 0 && value(r, c) < value(r, c - 1) * (1 - TOL)) {
+        problems.push({ path: [key, r, c], message: "must not fall with return period" });
+      }
+    }
+  }
+  return problems;
+}

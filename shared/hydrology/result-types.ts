@@ -1,0 +1,156 @@
+/**
+ * The shape of a computed result (the command line prints it as JSON). Every number is in the
+ * declared unit system (see `unitLabels`), times in minutes and hours; never NaN or Infinity.
+ */
+import type { Arc, ArcMethod } from "./arc";
+import type { MethodId } from "./method-ids";
+import type { UnitLabels, UnitSystem } from "./units";
+import type { HydrologyWarning } from "./warnings";
+
+export type Regime = "sheet" | "shallow" | "channel";
+
+export type SegmentEquation =
+  "velocity-k" | "manning" | "tr55-sheet" | "kinematic-wave" | "nrcs-lag";
+
+export interface SegmentResult {
+  readonly index: number;
+  readonly regime: Regime;
+  readonly equation: SegmentEquation;
+  readonly travelTimeMin: number;
+  readonly travelTimeHr: number;
+  /** Mean velocity where the equation gives one (length unit per second). */
+  readonly velocity?: number;
+  readonly flowArea?: number;
+  readonly wettedPerimeter?: number;
+  readonly hydraulicRadius?: number;
+  /** Curve number used (nrcs-lag per-segment sum). */
+  readonly cn?: number;
+}
+
+export interface Validity {
+  /** The range the method was developed for, in words, with its source. */
+  readonly range: string;
+  /** Where this case lies outside that range (empty when inside). */
+  readonly outside: readonly string[];
+}
+
+interface MethodCommon {
+  readonly id: MethodId;
+  readonly label: string;
+  readonly kind: "method" | "check";
+  readonly source: string;
+}
+
+export interface MethodUnavailable extends MethodCommon {
+  readonly status: "unavailable";
+  readonly reason: string;
+  /** Input fields that would make the method computable. */
+  readonly fields: readonly string[];
+}
+
+export interface MethodOk extends MethodCommon {
+  readonly status: "ok";
+  /** "whole-path": every segment; "overland": the sheet segments only (Kerby, FAA). */
+  readonly scope: "whole-path" | "overland";
+  /** Tc as computed, before the minimum Tc. */
+  readonly computedMin: number;
+  /** Tc with the minimum Tc applied. */
+  readonly totalMin: number;
+  readonly totalHr: number;
+  readonly minimumApplied: boolean;
+  readonly segments: readonly SegmentResult[];
+  readonly validity: Validity;
+}
+
+export interface KinematicResult extends MethodOk {
+  /** Design intensity on the overland segments, at the solved overland time. */
+  readonly intensity: number;
+  readonly overlandMin: number;
+  readonly k: number;
+  readonly kLabel: string;
+  readonly solver: "fixed-point" | "bracketing";
+  readonly toleranceMin: number;
+  /** Every iterate (tc, i(tc)), in order, for a convergence plot. */
+  readonly iterations: ReadonlyArray<{ readonly tcMin: number; readonly intensity: number }>;
+}
+
+export interface LagResult extends MethodOk {
+  readonly flowLength: number;
+  readonly cnArcII: number;
+  readonly cn: number;
+  readonly arc: Arc;
+  readonly arcMethod: ArcMethod;
+  readonly avgSlopePercent: number;
+  readonly slopeSource: "watershed" | "flow-path";
+  readonly lagHr: number;
+  /** Σ of the lag equation applied to each segment on its own (reported beside totalMin). */
+  readonly segmentSumMin: number;
+}
+
+export interface CheckResult extends MethodOk {
+  /** The figures the check formula used, in the declared units. */
+  readonly inputs: Readonly<Record<string, number>>;
+}
+
+export type Outcome<T extends MethodOk> = T | MethodUnavailable;
+
+export interface MethodResults {
+  readonly velocity: Outcome<MethodOk>;
+  readonly "nrcs-lag": Outcome<LagResult>;
+  readonly "kinematic-wave": Outcome<KinematicResult>;
+  readonly "nrcs-segmental": Outcome<MethodOk>;
+  readonly kirpich: Outcome<CheckResult>;
+  readonly kerby: Outcome<CheckResult>;
+  readonly faa: Outcome<CheckResult>;
+}
+
+export interface Governing {
+  readonly method: MethodId;
+  readonly tcMin: number;
+  readonly tcHr: number;
+  readonly reason: string;
+}
+
+export interface PeakFlow {
+  readonly value: number;
+  readonly unit: UnitLabels["flow"];
+  readonly c: number;
+  readonly cf: number;
+  readonly cfTimesC: number;
+  readonly intensity: number;
+  readonly durationMin: number;
+  readonly area: number;
+  readonly returnPeriodYears: number;
+}
+
+export interface RulesApplied {
+  readonly minTcMin: number;
+  readonly sheetFlowMaxLength: string;
+  readonly kinematicWaveK: {
+    readonly value: number;
+    readonly label: string;
+    readonly source: string;
+  };
+  readonly arc: Arc;
+  readonly arcMethod: ArcMethod;
+  readonly governing: string;
+  readonly frequencyFactor: boolean;
+  readonly allowIdfExtrapolation: boolean;
+  readonly lagCn: "path-weighted" | "watershed";
+  readonly manningConstant: "1.49" | "exact";
+}
+
+export interface ComputeResult {
+  readonly units: UnitSystem;
+  readonly unitLabels: UnitLabels;
+  readonly returnPeriodYears: number;
+  readonly rules: RulesApplied;
+  readonly methods: MethodResults;
+  readonly governing: Governing;
+  readonly peakFlow: PeakFlow | null;
+  readonly warnings: readonly HydrologyWarning[];
+  readonly caution: string;
+}
+
+export const CAUTION =
+  "Design aid for qualified engineers: local drainage criteria and the engineer of record govern.";
