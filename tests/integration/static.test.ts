@@ -16,7 +16,10 @@ beforeAll(async () => {
     path.join(dist, "index.html"),
     "<!doctype html><title>Rillmark</title><div id=root></div>",
   );
-  writeFileSync(path.join(dist, "assets", "index-3f9a1c.js"), "console.log('client');");
+  writeFileSync(
+    path.join(dist, "assets", "index-3f9a1c.js"),
+    "console.log('client');\n".repeat(200),
+  );
   writeFileSync(path.join(dist, "favicon.svg"), "<svg xmlns='http://www.w3.org/2000/svg'/>");
   t = await startTestApp({ clientDist: dist });
 });
@@ -40,6 +43,14 @@ describe("serving the client", () => {
     expect(res.status).toBe(200);
     expect(res.headers["cache-control"]).toContain("immutable");
     expect(res.headers["cache-control"]).toContain("max-age=31536000");
+  });
+
+  it("sends the client gzip-compressed to a browser that accepts it", async () => {
+    const res = await supertest(t.app)
+      .get("/assets/index-3f9a1c.js")
+      .set("Accept-Encoding", "gzip");
+    expect(res.headers["content-encoding"]).toBe("gzip");
+    expect(res.text).toContain("console.log('client');");
   });
 
   it("answers a missing asset with 404, not the page", async () => {
