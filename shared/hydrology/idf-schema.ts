@@ -155,15 +155,35 @@ function tableProblems(table: TableShape): Problem[] {
         const depth0 = (i0 * (d[r - 1] ?? 0)) / 60;
         const depth1 = (i1 * (d[r] ?? 0)) / 60;
         if (i1 > i0 * (1 + TOL)) {
-          problems.push({ path: [key, r, c], message: "intensity must not rise with duration" });
+          problems.push({
+            path: [key, r, c],
+            message:
+              `intensity ${fmt(i1)} at ${d[r]} min is above ${fmt(i0)} at ${d[r - 1]} min ` +
+              `(${periods[c]}-year); intensity must not rise with duration`,
+          });
         } else if (depth1 < depth0 * (1 - TOL)) {
-          problems.push({ path: [key, r, c], message: "depth must not fall with duration" });
+          problems.push({
+            path: [key, r, c],
+            message:
+              `depth ${fmt(depth1)} by ${d[r]} min is below ${fmt(depth0)} by ${d[r - 1]} min ` +
+              `(${periods[c]}-year); the rainfall depth must not fall as the duration grows`,
+          });
         }
       }
       if (c > 0 && value(r, c) < value(r, c - 1) * (1 - TOL)) {
-        problems.push({ path: [key, r, c], message: "must not fall with return period" });
+        problems.push({
+          path: [key, r, c],
+          message:
+            `${fmt(value(r, c))} for ${periods[c]}-year is below ${fmt(value(r, c - 1))} for ` +
+            `${periods[c - 1]}-year at ${d[r]} min; values must not fall as the return period grows`,
+        });
       }
     }
   }
   return problems;
+}
+
+/** Four significant figures: enough to find the cell, short enough to read. */
+function fmt(x: number): string {
+  return String(Number(x.toPrecision(4)));
 }
