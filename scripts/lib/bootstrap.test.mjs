@@ -237,9 +237,16 @@ describe("npm test options", () => {
   it("selects, skips and passes filters on to vitest", () => {
     const only = planSteps(parseTestArgs(["--only", "unit", "shared/hydrology"]));
     assert.deepEqual(
-      only.map((s) => s.args),
+      only.map((s) => s.args.slice(0, 5)),
       [["run", "--project", "unit", "shared/hydrology", "--passWithNoTests"]],
     );
+    // The human-readable reporter stays; a JSON report beside it gives the closing counts.
+    assert.deepEqual(only[0].args.slice(5), [
+      "--reporter=default",
+      "--reporter=json",
+      "--outputFile.json=.data/logs/test-unit.json",
+    ]);
+    assert.deepEqual(only[0].report, { kind: "vitest", file: ".data/logs/test-unit.json" });
     const skipped = planSteps(parseTestArgs(["--skip", "e2e,build"])).map((s) => s.id);
     assert.equal(skipped.includes("e2e") || skipped.includes("build"), false);
     assert.throws(() => parseTestArgs(["--only", "nope"]), /expects step names/);

@@ -109,7 +109,8 @@ export async function stopChildren(signal = "SIGTERM", graceMs = 10_000) {
   clearTimeout(timer);
 }
 
-async function runCleanups() {
+/** Run the registered clean-up steps now (once: each runs a single time). */
+export async function runCleanups() {
   while (cleanups.length > 0) {
     const step = cleanups.pop();
     try {

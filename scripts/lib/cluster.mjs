@@ -22,6 +22,14 @@ import {
   startServer,
   waitReady,
 } from "./cluster-server.mjs";
+import {
+  finishAuth,
+  newPassword,
+  savePassword,
+  writeAuthFiles,
+  writeAuthIfNeeded,
+  writeInitPwfile,
+} from "./cluster-auth.mjs";
 
 export { stopCluster } from "./cluster-server.mjs";
 
@@ -101,24 +109,29 @@ function prepareFolders(loc, ids) {
   return logFile;
 }
 
-async function initCluster(pg, dataDir, ids) {
+async function initCluster(pg, loc, dataDir, ids) {
   // A half-made folder from an interrupted initdb would make initdb refuse to start.
   if (fs.existsSync(dataDir)) fs.rmSync(dataDir, { recursive: true, force: true });
   say("creating the project's database cluster (initdb) …");
   const logFile = path.join(LOG_DIR, "initdb.log");
-  await mustRun(
-    "initdb",
-    path.join(pg.bin, "initdb"),
-    ["-D", dataDir, "-U", "postgres", "--auth=trust", "-E", "UTF8", "--no-locale"],
-    { asPostgres: true, logFile, env: pgEnv() },
-  );
-  // Only local connections: the socket and IPv4 loopback.
-  writeOwned(
-    path.join(dataDir, "pg_hba.conf"),
-    "# Rillmark's project-local cluster: loopback only.\n" +
-      "local all all trust\nhost all all 127.0.0.1/32 trust\n",
-    ids,
-  );
+  const password = newPassword();
+  // initdb runs as the server's user: it reads a copy in the cluster's private folder.
+  const pwfile = writeInitPwfile(loc.base, password, ids);
+  try {
+    await mustRun(
+      "initdb",
+      path.join(pg.bin, "initdb"),
+      [
+        ...["-D", dataDir, "-U", "postgres", `--pwfile=${pwfile}`],
+        ...["--auth-host=scram-sha-256", "--auth-local=peer", "-E", "UTF8", "--no-locale"],
+      ],
+      { asPostgres: true, logFile, env: pgEnv() },
+    );
+  } finally {
+    fs.rmSync(pwfile, { force: true });
+  }
+  writeAuthFiles(dataDir, ids);
+  savePassword(password);
   fs.appendFileSync(
     path.join(dataDir, "postgresql.conf"),
     "\n# Settings of the Rillmark bootstrap (rewritten at every start).\ninclude_if_exists = 'rillmark.conf'\n",
@@ -147,8 +160,9 @@ function writeSettings(dataDir, port, socketDir, ids) {
 }
 
 /**
- * Create (once), recover and start the cluster. Returns
- * { base, dataDir, socketDir, port, logFile, version, bin, fallback, startedHere }.
+ * Create (once), recover and start the cluster, password-protected (see cluster-auth.mjs).
+ * Returns { base, dataDir, socketDir, port, password, logFile, version, bin, fallback,
+ * startedHere }; the password is never written to cluster.json.
  */
 export async function ensureCluster() {
   const loc = locate();
@@ -163,7 +177,7 @@ export async function ensureCluster() {
   const ids = isRoot ? postgresIds() : null;
   const logFile = prepareFolders(loc, ids);
   const started = Date.now();
-  if (!clusterVersion) await initCluster(pg, dataDir, ids);
+  if (!clusterVersion) await initCluster(pg, loc, dataDir, ids);
 
   const cluster = { base: loc.base, dataDir, logFile, fallback: loc.fallback, ...pg };
   const pidInfo = readPid(dataDir);
@@ -173,6 +187,8 @@ export async function ensureCluster() {
       Object.assign(cluster, { port, socketDir: pidInfo.socketDir, startedHere: false });
       saveClusterJson(cluster);
       say(`database server already running on 127.0.0.1:${port} (${rel(loc.base)})`);
+      const plan = writeAuthIfNeeded(dataDir, ids);
+      cluster.password = await finishAuth(cluster, plan, { reload: plan.changed });
       return cluster;
     }
     throw new BootstrapError(`PostgreSQL (pid ${pidInfo.pid}) runs but does not answer`, {
@@ -197,12 +213,14 @@ export async function ensureCluster() {
   fs.chmodSync(socketDir, 0o700);
   if (ids) own(socketDir, ids);
   writeSettings(dataDir, port, socketDir, ids);
+  const plan = writeAuthIfNeeded(dataDir, ids);
   Object.assign(cluster, { port, socketDir, startedHere: true });
   saveClusterJson(cluster);
   await startServer(pg, cluster);
   say(
     `database server started on 127.0.0.1:${port} in ${seconds(Date.now() - started)} (${rel(loc.base)})`,
   );
+  cluster.password = await finishAuth(cluster, plan, { reload: false });
   return cluster;
 }
 

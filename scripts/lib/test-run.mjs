@@ -3,17 +3,43 @@
 //   npm test -- --skip e2e           leave some out
 //   npm test -- --verbose            stream each tool's output (it is always in .data/logs/)
 //   npm test -- <vitest filters>     passed on to the vitest runs
+// The last line is plain, for CI: "rillmark: 612 passed, 0 failed" (every test runner summed).
 import fs from "node:fs";
 import path from "node:path";
-import { BootstrapError, LOG_DIR, color, progress, rel, say, seconds, tail } from "./log.mjs";
+import {
+  BootstrapError,
+  LOG_DIR,
+  color,
+  printError,
+  progress,
+  rel,
+  say,
+  seconds,
+  tail,
+  warn,
+} from "./log.mjs";
 import { binPath } from "./node-deps.mjs";
 import { installPackages } from "./apt.mjs";
 import { ensureClientBuild } from "./client-build.mjs";
-import { isStopping, spawnChild } from "./children.mjs";
+import { isStopping, runCleanups, spawnChild } from "./children.mjs";
 import { prepare } from "./setup.mjs";
+import {
+  addTallies,
+  clearStepReport,
+  closingLine,
+  countsText,
+  readStepCounts,
+  reportFile,
+  stepTally,
+} from "./test-counts.mjs";
 
 export const TEST_SESSION_SECRET = "rillmark-test-session-secret-not-for-production-4f9c2a7e1b";
 const VITEST_PROJECTS = ["unit", "integration"];
+export const SELF_TEST_FILES = [
+  "scripts/lib/bootstrap.test.mjs",
+  "scripts/lib/cluster-auth.test.mjs",
+  "scripts/lib/test-counts.test.mjs",
+];
 export const STEP_IDS = [
   "bootstrap",
   "typecheck",
@@ -44,35 +70,54 @@ export function parseTestArgs(args) {
   return options;
 }
 
+/** Pure: vitest's own output stays in the log; a JSON report beside it gives the counts. */
+function vitestStep(id, label, args) {
+  const file = reportFile(id, "json");
+  const reporters = ["--reporter=default", "--reporter=json", `--outputFile.json=${file}`];
+  return {
+    id,
+    label,
+    tool: "vitest",
+    args: [...args, ...reporters],
+    report: { kind: "vitest", file },
+  };
+}
+
+/** Pure: the self-test, readable (spec) in the log and as TAP in a file for the counts. */
+function selfTestStep() {
+  const file = reportFile("bootstrap", "tap");
+  return {
+    id: "bootstrap",
+    label: "bootstrap self-test (node --test)",
+    tool: "node",
+    args: [
+      ...["--test", "--test-reporter=spec", "--test-reporter-destination=stdout"],
+      ...["--test-reporter=tap", `--test-reporter-destination=${file}`],
+      ...SELF_TEST_FILES,
+    ],
+    report: { kind: "node", file },
+  };
+}
+
 /** Pure: the ordered steps to run for these options. */
 export function planSteps(options) {
   const wanted = (id) => (options.only ? options.only.has(id) : true) && !options.skip.has(id);
   const extra = options.vitestArgs.length > 0 ? [...options.vitestArgs, "--passWithNoTests"] : [];
   const projects = VITEST_PROJECTS.filter(wanted);
   const steps = [
-    {
-      id: "bootstrap",
-      label: "bootstrap self-test (node --test)",
-      tool: "node",
-      args: ["--test", "scripts/lib/bootstrap.test.mjs"],
-    },
+    selfTestStep(),
     { id: "typecheck", label: "typecheck (tsc)", tool: "tsc", args: ["--noEmit", "-p", "."] },
     { id: "lint", label: "lint (eslint)", tool: "eslint", args: [".", "--max-warnings", "0"] },
     { id: "format", label: "format (prettier)", tool: "prettier", args: ["--check", "."] },
   ].filter((step) => wanted(step.id));
   if (projects.length > 0) {
     const args = ["run", ...projects.flatMap((name) => ["--project", name]), ...extra];
-    steps.push({
-      id: projects.join("+"),
-      label: `${projects.join(" + ")} tests (vitest)`,
-      tool: "vitest",
-      args,
-    });
+    steps.push(vitestStep(projects.join("+"), `${projects.join(" + ")} tests (vitest)`, args));
   }
   if (wanted("build")) steps.push({ id: "build", label: "client build (vite)", build: true });
   if (wanted("e2e")) {
     const args = ["run", "--project", "e2e", ...extra];
-    steps.push({ id: "e2e", label: "end-to-end tests (vitest + Chromium)", tool: "vitest", args });
+    steps.push(vitestStep("e2e", "end-to-end tests (vitest + Chromium)", args));
   }
   return steps;
 }
@@ -92,9 +137,14 @@ async function runTool(step, env, verbose) {
   const logFile = path.join(LOG_DIR, `test-${step.id}.log`);
   fs.writeFileSync(logFile, `# ${step.label} — ${new Date().toISOString()}\n`);
   const cmd = step.tool === "node" ? process.execPath : binPath(step.tool);
+  clearStepReport(step);
   const { done } = spawnChild(cmd, step.args, { env, logFile, echo: verbose });
   const { code, signal } = await done;
-  return { ok: code === 0, logFile, exit: signal ?? code };
+  const counts = readStepCounts(step);
+  // Never a silent zero in the closing line: say when a passing runner left no report.
+  if (step.report && !counts && code === 0)
+    warn(`${step.label}: no test report in ${step.report.file}`);
+  return { ok: code === 0, logFile, exit: signal ?? code, counts };
 }
 
 function printSummary(rows, totalMs) {
@@ -105,9 +155,9 @@ function printSummary(rows, totalMs) {
   lines.push(color.dim(`  ${"step".padEnd(width)}${"result".padEnd(9)}time`));
   for (const row of rows) {
     const result = paint[row.result](words[row.result].padEnd(9));
-    lines.push(
-      `  ${row.label.padEnd(width)}${result}${row.ms === undefined ? "" : seconds(row.ms)}`,
-    );
+    const time = row.ms === undefined ? "" : seconds(row.ms).padEnd(8);
+    const counts = row.counts ? color.dim(countsText(row.counts)) : "";
+    lines.push(`  ${row.label.padEnd(width)}${result}${time}${counts}`.trimEnd());
   }
   lines.push(`  ${"total".padEnd(width)}${" ".repeat(9)}${seconds(totalMs)}`);
   process.stdout.write(`${lines.join("\n")}\n`);
@@ -118,24 +168,42 @@ export async function test(args) {
   const options = parseTestArgs(args);
   const steps = planSteps(options);
   const rows = [];
+  const tallies = [];
   const timed = async (label, fn) => {
     const t = Date.now();
-    const value = await fn();
-    rows.push({ label, result: "ok", ms: Date.now() - t });
-    return value;
+    try {
+      const value = await fn();
+      rows.push({ label, result: "ok", ms: Date.now() - t });
+      return value;
+    } catch (error) {
+      rows.push({ label, result: "failed", ms: Date.now() - t });
+      throw error;
+    }
   };
   const needDb = steps.some((step) => step.id.includes("integration") || step.id === "e2e");
-  const { databaseUrl, release } = await timed("set-up (Node, dependencies, database)", () =>
-    prepare({ command: "test", database: "rillmark_test", fresh: true, needDb }),
-  );
-  const chromium = steps.some((step) => step.id === "e2e")
-    ? await timed("Chromium", ensureChromium)
-    : process.env.CHROMIUM_PATH || "/usr/bin/chromium";
+  let setup;
+  try {
+    setup = await timed("set-up (Node, dependencies, database)", () =>
+      prepare({ command: "test", database: "rillmark_test", fresh: true, needDb }),
+    );
+    setup.chromium = steps.some((step) => step.id === "e2e")
+      ? await timed("Chromium", ensureChromium)
+      : process.env.CHROMIUM_PATH || "/usr/bin/chromium";
+  } catch (error) {
+    // CI still gets its closing line, last: the clean-up steps registered so far run first.
+    if (isStopping()) return new Promise(() => {});
+    printError(error);
+    await runCleanups();
+    for (const step of steps) rows.push({ label: step.label, result: "skipped" });
+    printSummary(rows, Date.now() - started);
+    process.stdout.write(`${closingLine(addTallies([stepTally(null, false)]))}\n`);
+    return error?.exitCode ?? 1;
+  }
   const env = {
     ...process.env,
-    ...(databaseUrl ? { DATABASE_URL: databaseUrl } : {}),
+    ...(setup.databaseUrl ? { DATABASE_URL: setup.databaseUrl } : {}),
     NODE_ENV: "test",
-    CHROMIUM_PATH: chromium,
+    CHROMIUM_PATH: setup.chromium,
     SESSION_SECRET: TEST_SESSION_SECRET,
   };
 
@@ -160,11 +228,18 @@ export async function test(args) {
     // Interrupted: the signal handler stops the rest and exits; no verdict to print.
     if (isStopping()) return new Promise(() => {});
     done(outcome.ok);
-    rows.push({ label: step.label, result: outcome.ok ? "ok" : "failed", ms: Date.now() - t });
+    const counts = outcome.counts ?? null;
+    rows.push({
+      label: step.label,
+      result: outcome.ok ? "ok" : "failed",
+      ms: Date.now() - t,
+      counts,
+    });
+    tallies.push(stepTally(counts, outcome.ok));
     if (!outcome.ok) failure = { step, ...outcome };
   }
 
-  await timed("database shut-down (if started here)", release);
+  await timed("database shut-down (if started here)", setup.release);
   if (failure?.logFile && !options.verbose) {
     process.stderr.write(
       `\n${color.dim(`── last lines of ${rel(failure.logFile)} ──`)}\n${tail(failure.logFile, 80)}\n`,
@@ -173,10 +248,11 @@ export async function test(args) {
   printSummary(rows, Date.now() - started);
   if (!failure) {
     say(color.green("all checks passed"));
-    return 0;
+  } else {
+    const reason = failure.error?.message ?? `exit ${failure.exit}`;
+    process.stderr.write(`${color.red("rillmark ✖")} ${failure.step.label} failed (${reason})`);
+    process.stderr.write(`${failure.logFile ? `; full log: ${rel(failure.logFile)}` : ""}\n`);
   }
-  const reason = failure.error?.message ?? `exit ${failure.exit}`;
-  process.stderr.write(`${color.red("rillmark ✖")} ${failure.step.label} failed (${reason})`);
-  process.stderr.write(`${failure.logFile ? `; full log: ${rel(failure.logFile)}` : ""}\n`);
-  return 1;
+  process.stdout.write(`${closingLine(addTallies(tallies))}\n`);
+  return failure ? 1 : 0;
 }
