@@ -1,12 +1,5 @@
 import { type SelectHTMLAttributes } from "react";
-import {
-  borderFor,
-  FieldErrorText,
-  FieldHint,
-  FieldLabel,
-  inputClass,
-  useFieldIds,
-} from "./field-parts";
+import { FieldFrame } from "./field-parts";
 
 export interface SelectOption {
   value: string;
@@ -33,26 +26,17 @@ export function Select({
   className = "",
   ...rest
 }: SelectProps) {
-  const ids = useFieldIds(error, hint);
   return (
-    <div className={className}>
-      <FieldLabel htmlFor={ids.id} label={label} hidden={hideLabel} />
-      <select
-        id={ids.id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={ids.describedBy}
-        className={`${inputClass} ${borderFor(error)} pr-8`}
-        {...rest}
-      >
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </select>
-      <FieldHint id={ids.hintId} hint={hint} />
-      <FieldErrorText id={ids.errorId} error={error} />
-    </div>
+    <FieldFrame {...{ label, error, hint, hideLabel, className }}>
+      {(control) => (
+        <select name={name} {...control} className={`${control.className} pr-8`} {...rest}>
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+      )}
+    </FieldFrame>
   );
 }

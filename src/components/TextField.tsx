@@ -1,12 +1,5 @@
 import { type InputHTMLAttributes, type TextareaHTMLAttributes } from "react";
-import {
-  borderFor,
-  FieldErrorText,
-  FieldHint,
-  FieldLabel,
-  inputClass,
-  useFieldIds,
-} from "./field-parts";
+import { FieldFrame } from "./field-parts";
 
 interface FieldProps {
   label: string;
@@ -25,21 +18,10 @@ export function TextField({
   className = "",
   ...rest
 }: FieldProps & Omit<InputHTMLAttributes<HTMLInputElement>, "name">) {
-  const ids = useFieldIds(error, hint);
   return (
-    <div className={className}>
-      <FieldLabel htmlFor={ids.id} label={label} optional={optional} />
-      <input
-        id={ids.id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={ids.describedBy}
-        className={`${inputClass} ${borderFor(error)}`}
-        {...rest}
-      />
-      <FieldHint id={ids.hintId} hint={hint} />
-      <FieldErrorText id={ids.errorId} error={error} />
-    </div>
+    <FieldFrame {...{ label, error, hint, optional, className }}>
+      {(control) => <input name={name} {...control} {...rest} />}
+    </FieldFrame>
   );
 }
 
@@ -52,21 +34,17 @@ export function TextAreaField({
   className = "",
   ...rest
 }: FieldProps & Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, "name">) {
-  const ids = useFieldIds(error, hint);
   return (
-    <div className={className}>
-      <FieldLabel htmlFor={ids.id} label={label} optional={optional} />
-      <textarea
-        id={ids.id}
-        name={name}
-        rows={3}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={ids.describedBy}
-        className={`${inputClass} ${borderFor(error)} resize-y`}
-        {...rest}
-      />
-      <FieldHint id={ids.hintId} hint={hint} />
-      <FieldErrorText id={ids.errorId} error={error} />
-    </div>
+    <FieldFrame {...{ label, error, hint, optional, className }}>
+      {(control) => (
+        <textarea
+          name={name}
+          rows={3}
+          {...control}
+          className={`${control.className} resize-y`}
+          {...rest}
+        />
+      )}
+    </FieldFrame>
   );
 }

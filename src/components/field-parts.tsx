@@ -1,4 +1,4 @@
-import { useId } from "react";
+import { type ReactNode, useId } from "react";
 
 export const inputClass =
   "block w-full rounded-md border bg-white px-3 py-2 text-sm text-ink-900 shadow-xs disabled:bg-ink-50 disabled:text-ink-500";
@@ -46,8 +46,8 @@ export function FieldLabel({
 }: {
   htmlFor: string;
   label: string;
-  optional?: boolean;
-  hidden?: boolean;
+  optional?: boolean | undefined;
+  hidden?: boolean | undefined;
 }) {
   return (
     <label
@@ -57,5 +57,47 @@ export function FieldLabel({
       {label}
       {optional && <span className="ml-1 font-normal text-ink-500">(optional)</span>}
     </label>
+  );
+}
+
+/** What a labelled control needs from its frame: its id, its ARIA ties and its border. */
+export interface ControlProps {
+  id: string;
+  "aria-invalid": true | undefined;
+  "aria-describedby": string | undefined;
+  className: string;
+}
+
+/** Label, hint and error around one control, tied together for screen readers. */
+export function FieldFrame({
+  label,
+  error,
+  hint,
+  optional,
+  hideLabel,
+  className,
+  children,
+}: {
+  label: string;
+  error: string | undefined;
+  hint: string | undefined;
+  optional?: boolean | undefined;
+  hideLabel?: boolean | undefined;
+  className: string;
+  children: (control: ControlProps) => ReactNode;
+}) {
+  const ids = useFieldIds(error, hint);
+  return (
+    <div className={className}>
+      <FieldLabel htmlFor={ids.id} label={label} optional={optional} hidden={hideLabel} />
+      {children({
+        id: ids.id,
+        "aria-invalid": error ? true : undefined,
+        "aria-describedby": ids.describedBy,
+        className: `${inputClass} ${borderFor(error)}`,
+      })}
+      <FieldHint id={ids.hintId} hint={hint} />
+      <FieldErrorText id={ids.errorId} error={error} />
+    </div>
   );
 }
