@@ -27,3 +27,5 @@ export { fieldProblems, inputError } from "./zod-errors";
 export * from "./result-types";
 export { compute, computeFromJson } from "./compute";
 export { formatResultText } from "./text-report";
+// The published surface defaults (n, k, CN, C), each value with its source.
+export * as catalog from "./catalog";
