@@ -1,27 +1,14 @@
-import { type Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type RunningRillmark } from "../../server/main";
-import { guardedContext, launchBrowser } from "./support/browser";
+import { describe, expect, it } from "vitest";
+import { guardedContext } from "./support/browser";
 import { DEMO_TEAM_NAME, demoEmail, signIn, unique } from "./support/demo";
 import { linkFromOutbox } from "./support/outbox";
-import { startServer } from "./support/server";
+import { useServerAndBrowser } from "./support/session";
 
-let server: RunningRillmark;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = useServerAndBrowser();
 
 describe("invitations", () => {
   it("lets an admin invite someone who opens the e-mailed link and joins the team", async () => {
-    const admin = await guardedContext(browser, server.url);
+    const admin = await guardedContext(e2e.browser, e2e.server.url);
     await signIn(admin.page, demoEmail("admin"));
     await admin.page
       .getByRole("navigation", { name: "Main" })
@@ -48,7 +35,7 @@ describe("invitations", () => {
     expect(href).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/invitations\/[A-Za-z0-9_-]+$/);
 
     // The invitee, in a browser of their own, follows the link and sets up the account.
-    const invitee = await guardedContext(browser, server.url);
+    const invitee = await guardedContext(e2e.browser, e2e.server.url);
     await invitee.page.goto(href);
     await invitee.page
       .getByRole("heading", { name: `Join ${DEMO_TEAM_NAME} on Rillmark` })

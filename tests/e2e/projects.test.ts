@@ -1,27 +1,14 @@
-import { type Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type RunningRillmark } from "../../server/main";
-import { guardedContext, launchBrowser } from "./support/browser";
+import { describe, expect, it } from "vitest";
+import { guardedContext } from "./support/browser";
 import { DEMO_PROJECT, demoEmail, signIn, unique } from "./support/demo";
 import { saveScreenshot } from "./support/screenshots";
-import { startServer } from "./support/server";
+import { useServerAndBrowser } from "./support/session";
 
-let server: RunningRillmark;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = useServerAndBrowser();
 
 describe("projects", () => {
   it("lets an engineer create a project and see it listed, with every request on 127.0.0.1", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await signIn(page, demoEmail("engineer"));
 
@@ -54,7 +41,7 @@ describe("projects", () => {
   });
 
   it("shows a viewer the projects but not the create-project form", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await signIn(page, demoEmail("viewer"));
 

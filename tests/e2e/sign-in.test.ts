@@ -1,27 +1,14 @@
-import { type Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type RunningRillmark } from "../../server/main";
-import { guardedContext, launchBrowser } from "./support/browser";
+import { describe, expect, it } from "vitest";
+import { guardedContext } from "./support/browser";
 import { demoEmail, signIn, unique } from "./support/demo";
 import { saveScreenshot } from "./support/screenshots";
-import { startServer } from "./support/server";
+import { useServerAndBrowser } from "./support/session";
 
-let server: RunningRillmark;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = useServerAndBrowser();
 
 describe("sign-in page", () => {
   it("shows Rillmark's own page in Noto Sans served by Rillmark itself", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await page.goto("/sign-in");
     await page.getByRole("heading", { level: 1, name: "Sign in to Rillmark" }).waitFor();
@@ -48,7 +35,7 @@ describe("sign-in page", () => {
   });
 
   it("says what is wrong, next to the form, when the password does not match", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await page.goto("/sign-in");
     await page.getByLabel("E-mail").fill(`${unique("nobody")}@demo.rillmark.test`);
@@ -63,7 +50,7 @@ describe("sign-in page", () => {
   });
 
   it("ties a client-side field error to its input", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await page.goto("/sign-in");
     await page.getByLabel("E-mail").fill("not an address");
@@ -78,7 +65,7 @@ describe("sign-in page", () => {
   });
 
   it("signs out from the account menu, after which pages ask to sign in again", async () => {
-    const guard = await guardedContext(browser, server.url);
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
     await signIn(page, demoEmail("reviewer"));
     await page.getByRole("button", { name: /account menu/ }).click();

@@ -1,27 +1,14 @@
-import { type Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { type RunningRillmark } from "../../server/main";
-import { guardedContext, launchBrowser } from "./support/browser";
+import { describe, expect, it } from "vitest";
+import { guardedContext } from "./support/browser";
 import { DEMO_TEAM_NAME, demoEmail, signIn, unique } from "./support/demo";
 import { linkFromOutbox } from "./support/outbox";
-import { startServer } from "./support/server";
+import { useServerAndBrowser } from "./support/session";
 
-let server: RunningRillmark;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const e2e = useServerAndBrowser();
 
 describe("sign-up and teams", () => {
   it("creates a team for a confirmed sign-up, whose owner can bring in an existing account", async () => {
-    const founder = await guardedContext(browser, server.url);
+    const founder = await guardedContext(e2e.browser, e2e.server.url);
     const email = `${unique("founder")}@signup.rillmark.test`;
     const teamName = unique("Silt Basin Engineers");
     await founder.page.goto("/sign-up");
@@ -33,7 +20,7 @@ describe("sign-up and teams", () => {
     await founder.page.getByRole("heading", { name: "Check your e-mail" }).waitFor();
 
     // The demo admin reads the development Outbox, where the confirmation mail landed.
-    const admin = await guardedContext(browser, server.url);
+    const admin = await guardedContext(e2e.browser, e2e.server.url);
     await signIn(admin.page, demoEmail("admin"));
     const confirmHref = await linkFromOutbox(admin.page, [email], /\/confirm-email\//);
 
