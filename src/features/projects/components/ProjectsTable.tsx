@@ -1,6 +1,14 @@
 import { Link } from "react-router-dom";
 import { type Project } from "../../../../shared/schemas/projects";
+import { TableHead } from "../../../components/TableHead";
 import { formatDate, returnPeriodLabel, UNIT_SHORT_LABELS } from "../../../lib/format";
+
+const PROJECT_COLUMNS = [
+  { label: "Project" },
+  { label: "Units" },
+  { label: "Design storm" },
+  { label: "Updated" },
+];
 
 export function DemoTag() {
   return (
@@ -20,22 +28,7 @@ export function ProjectsTable({
   return (
     <table className="w-full text-left text-sm">
       <caption className="sr-only">Projects of {teamName}</caption>
-      <thead className="border-b border-ink-200 text-xs tracking-wide text-ink-500 uppercase">
-        <tr>
-          <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-            Project
-          </th>
-          <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-            Units
-          </th>
-          <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-            Design storm
-          </th>
-          <th scope="col" className="py-2 font-semibold whitespace-nowrap">
-            Updated
-          </th>
-        </tr>
-      </thead>
+      <TableHead columns={PROJECT_COLUMNS} />
       <tbody className="divide-y divide-ink-100">
         {projects.map((project) => (
           <tr key={project.id} className="align-top hover:bg-ink-50/60">

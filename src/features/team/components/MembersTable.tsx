@@ -4,6 +4,7 @@ import { type Member } from "../../../../shared/schemas/team";
 import { Button } from "../../../components/Button";
 import { ConfirmDialog } from "../../../components/ConfirmDialog";
 import { Select } from "../../../components/Select";
+import { TableHead } from "../../../components/TableHead";
 import { isApiError } from "../../../lib/api";
 import { formatDate } from "../../../lib/format";
 import { useChangeRole } from "../api/change-role";
@@ -51,6 +52,13 @@ function RoleCell({
   );
 }
 
+const MEMBER_COLUMNS = [
+  { label: "Name" },
+  { label: "Role" },
+  { label: "Joined" },
+  { label: "Actions", hidden: true },
+];
+
 export function MembersTable({ teamId, teamName, members, actorRole, actorId }: MembersTableProps) {
   const remove = useRemoveMember(teamId);
   const [leaving, setLeaving] = useState<Member | null>(null);
@@ -59,22 +67,7 @@ export function MembersTable({ teamId, teamName, members, actorRole, actorId }: 
     <>
       <table className="w-full text-left text-sm">
         <caption className="sr-only">Members of {teamName}</caption>
-        <thead className="border-b border-ink-200 text-xs tracking-wide text-ink-500 uppercase">
-          <tr>
-            <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-              Name
-            </th>
-            <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-              Role
-            </th>
-            <th scope="col" className="py-2 pr-4 font-semibold whitespace-nowrap">
-              Joined
-            </th>
-            <th scope="col" className="py-2 font-semibold whitespace-nowrap">
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
+        <TableHead columns={MEMBER_COLUMNS} />
         <tbody className="divide-y divide-ink-100">
           {members.map((member) => {
             const self = member.userId === actorId;
