@@ -5,7 +5,8 @@ import { spawn } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { after, describe, it } from "node:test";
+import { describe, it } from "node:test";
+import { tempDir } from "./self-test-tmp.mjs";
 import { checkNodeVersion, depsDecision } from "./node-deps.mjs";
 import {
   chooseClusterBase,
@@ -26,15 +27,7 @@ import { parseDotEnv } from "./dotenv.mjs";
 import util from "node:util";
 import { isRoot } from "./proc.mjs";
 
-const made = [];
-const tmp = () => {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "rillmark-selftest-"));
-  made.push(dir);
-  return dir;
-};
-after(() => {
-  for (const dir of made) fs.rmSync(dir, { recursive: true, force: true });
-});
+const tmp = tempDir;
 
 describe("Node version", () => {
   it("accepts 20.11 up to 22.x and refuses the rest with a message", () => {

@@ -5,9 +5,9 @@ import assert from "node:assert/strict";
 import { spawnSync } from "node:child_process";
 import { createHash, createHmac } from "node:crypto";
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
-import { after, describe, it } from "node:test";
+import { describe, it } from "node:test";
+import { tempDir } from "./self-test-tmp.mjs";
 import {
   PASSWORD_FILE,
   hbaConf,
@@ -24,15 +24,7 @@ import { postmasterRunning } from "./cluster-location.mjs";
 import { readPid } from "./cluster-server.mjs";
 import { DATA_DIR } from "./log.mjs";
 
-const made = [];
-const tmp = () => {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "rillmark-selftest-"));
-  made.push(dir);
-  return dir;
-};
-after(() => {
-  for (const dir of made) fs.rmSync(dir, { recursive: true, force: true });
-});
+const tmp = tempDir;
 
 const rules = (text) =>
   text

@@ -3,9 +3,9 @@
 import assert from "node:assert/strict";
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
-import os from "node:os";
 import path from "node:path";
-import { after, describe, it } from "node:test";
+import { describe, it } from "node:test";
+import { tempDir } from "./self-test-tmp.mjs";
 import {
   addTallies,
   closingLine,
@@ -14,11 +14,6 @@ import {
   vitestCounts,
 } from "./test-counts.mjs";
 import { SELF_TEST_FILES, parseTestArgs, planSteps } from "./test-run.mjs";
-
-const made = [];
-after(() => {
-  for (const dir of made) fs.rmSync(dir, { recursive: true, force: true });
-});
 
 // What CI looks for: the counts alone on a line, one word with a colon allowed before them.
 const CI_LINE = /^(\w+: )?\d+ passed, \d+ failed(, \d+ skipped)?$/;
@@ -64,8 +59,7 @@ describe("test counts", () => {
       assert.match(line, CI_LINE);
   });
   it("gets the counts from a real node --test run with the self-test step's flags", () => {
-    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "rillmark-selftest-"));
-    made.push(dir);
+    const dir = tempDir();
     const file = path.join(dir, "sample.test.mjs");
     fs.writeFileSync(
       file,
