@@ -1,6 +1,9 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as schema from "./schema";
+import * as coreSchema from "./schema";
+import * as geodataSchema from "./schema-geodata";
+
+const schema = { ...coreSchema, ...geodataSchema };
 
 export type Db = NodePgDatabase<typeof schema>;
 /** The handle inside `db.transaction(async (tx) => …)`. */
