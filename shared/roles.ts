@@ -34,6 +34,12 @@ export const PERMISSIONS = {
   "project:edit": ["owner", "admin", "engineer"],
   "project:delete": MANAGERS,
   "outbox:read": MANAGERS,
+  // Geodata: GIS staff bring layers; engineers own geometry, rules and computing.
+  "layer:edit": ["owner", "admin", "gis"],
+  "catalog:edit": MANAGERS,
+  "project-data:edit": ["owner", "admin", "engineer"],
+  "geometry:edit": ["owner", "admin", "engineer"],
+  "compute:run": ["owner", "admin", "engineer"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;
