@@ -17,7 +17,12 @@ export default defineConfig({
         extends: true,
         test: {
           name: "unit",
-          include: ["shared/**/*.test.ts", "src/**/*.test.{ts,tsx}", "tests/cli/**/*.test.ts"],
+          include: [
+            "shared/**/*.test.ts",
+            "src/**/*.test.{ts,tsx}",
+            "tests/cli/**/*.test.ts",
+            "server/geodata/**/*.test.ts",
+          ],
         },
       },
       {
