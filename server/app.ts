@@ -7,7 +7,9 @@ import type { AppConfig } from "./config";
 import type { Db } from "./db/client";
 import { clientRouter } from "./http/client";
 import { apiNotFound, errorHandler } from "./http/errors";
-import { requireJsonBody, sameOriginOnly, securityHeaders } from "./http/security";
+import { requireJsonOrUpload } from "./http/multipart-routes";
+import { sameOriginOnly, securityHeaders } from "./http/security";
+import type { JobQueue } from "./jobs/queue";
 import type { Mailer } from "./mail/mailer";
 import { accountRouter } from "./routes/account";
 import { authRouter } from "./routes/auth";
@@ -18,11 +20,14 @@ import { membersRouter } from "./routes/members";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
 import { teamsRouter } from "./routes/teams";
+import type { ObjectStore } from "./storage";
 
 export interface AppDeps {
   db: Db;
   sessionStore: session.Store;
   mailer: Mailer;
+  store: ObjectStore;
+  jobs: JobQueue;
 }
 
 export const JSON_BODY_LIMIT = "256kb";
@@ -44,17 +49,20 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     config,
     mailer: deps.mailer,
     limiters: createRateLimiters(config),
+    store: deps.store,
+    jobs: deps.jobs,
   };
 
   const api = express.Router();
   api.use(noStore);
   api.use(sameOriginOnly(config.publicBaseUrl));
-  api.use(requireJsonBody);
+  api.use(requireJsonOrUpload);
   api.use(
     express.json({ limit: JSON_BODY_LIMIT, type: ["application/json", "application/*+json"] }),
   );
   api.use(sessionMiddleware(config, deps.sessionStore));
-  for (const router of [
+  // One line per resource; geodata routers join this list.
+  const routers: ((deps: RouteDeps) => express.Router)[] = [
     configRouter,
     authRouter,
     accountRouter,
@@ -64,9 +72,8 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     teamInvitationsRouter,
     projectsRouter,
     outboxRouter,
-  ]) {
-    api.use(router(routeDeps));
-  }
+  ];
+  for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);
 
   app.use(securityHeaders(config.publicBaseUrl));

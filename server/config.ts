@@ -1,3 +1,5 @@
+import os from "node:os";
+import path from "node:path";
 import { z } from "zod";
 
 /** The development secret. Fine on a laptop; production refuses to start with it. */
@@ -58,6 +60,23 @@ const envSchema = z.object({
   EMAIL_LIMIT_PER_IP: count(20),
   EMAIL_LIMIT_PER_ADDRESS: count(5),
   SESSION_MAX_AGE_HOURS: count(24 * 14),
+  S3_ENDPOINT: optionalText.pipe(
+    z.url({ protocol: /^https?$/, message: "Use an http:// or https:// URL." }).optional(),
+  ),
+  S3_BUCKET: z.string().min(3).default("rillmark"),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  S3_ACCESS_KEY_ID: optionalText,
+  S3_SECRET_ACCESS_KEY: optionalText,
+  S3_FORCE_PATH_STYLE: flag(true),
+  FAKE_S3_PORT: port(0),
+  FAKE_S3_DIR: z.string().min(1).default(".data/s3"),
+  STORAGE_CACHE_DIR: z.string().min(1).default(".data/cache"),
+  UPLOAD_DIR: optionalText,
+  UPLOAD_LIMIT_VECTOR_MB: count(200),
+  UPLOAD_LIMIT_TERRAIN_MB: count(1024),
+  UPLOAD_LIMIT_RAINFALL_KB: count(1024),
+  UPLOAD_WAIT_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
+  JOB_QUEUE_SUFFIX: optionalText,
 });
 
 /** Every environment variable Rillmark reads (.env.example documents each one). */
@@ -92,6 +111,32 @@ export interface Config {
     emailPerAddress: number;
   };
   sessionMaxAgeMs: number;
+  storage: StorageConfig;
+  uploads: UploadConfig;
+  /** Queue names get this suffix (tests: one per app, so apps sharing a database never swap jobs). */
+  jobQueueSuffix: string;
+}
+
+export interface StorageConfig {
+  /** A real S3-compatible endpoint; undefined starts the local fake on 127.0.0.1. */
+  endpoint: string | undefined;
+  bucket: string;
+  region: string;
+  accessKeyId: string | undefined;
+  secretAccessKey: string | undefined;
+  forcePathStyle: boolean;
+  fakePort: number;
+  fakeDir: string;
+  /** Local copies of stored objects (terrain read by windows needs a seekable file). */
+  cacheDir: string;
+}
+
+export interface UploadConfig {
+  /** Where multer streams uploads before they are checked and stored. */
+  dir: string;
+  limitsBytes: { vector: number; terrain: number; rainfall: number };
+  /** How long an upload request waits for its ingest job before answering 202. */
+  waitMs: number;
 }
 
 /** A config whose public address is known; what the HTTP app needs. */
@@ -137,6 +182,27 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       emailPerAddress: e.EMAIL_LIMIT_PER_ADDRESS,
     },
     sessionMaxAgeMs: e.SESSION_MAX_AGE_HOURS * 3_600_000,
+    storage: {
+      endpoint: e.S3_ENDPOINT,
+      bucket: e.S3_BUCKET,
+      region: e.S3_REGION,
+      accessKeyId: e.S3_ACCESS_KEY_ID,
+      secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+      forcePathStyle: e.S3_FORCE_PATH_STYLE,
+      fakePort: e.FAKE_S3_PORT,
+      fakeDir: e.FAKE_S3_DIR,
+      cacheDir: e.STORAGE_CACHE_DIR,
+    },
+    uploads: {
+      dir: e.UPLOAD_DIR ?? path.join(os.tmpdir(), "rillmark-uploads"),
+      limitsBytes: {
+        vector: e.UPLOAD_LIMIT_VECTOR_MB * 1024 * 1024,
+        terrain: e.UPLOAD_LIMIT_TERRAIN_MB * 1024 * 1024,
+        rainfall: e.UPLOAD_LIMIT_RAINFALL_KB * 1024,
+      },
+      waitMs: e.UPLOAD_WAIT_MS,
+    },
+    jobQueueSuffix: e.JOB_QUEUE_SUFFIX ?? "",
   };
   assertSafeForProduction(config);
   return config;
@@ -155,6 +221,12 @@ export function assertSafeForProduction(config: Config): void {
   if (!config.smtp.host) {
     throw new ConfigError(
       "Rillmark needs SMTP_HOST in production: invitations and password resets are e-mailed.",
+    );
+  }
+  if (!config.storage.endpoint) {
+    throw new ConfigError(
+      "Rillmark needs S3_ENDPOINT (and S3_BUCKET, S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY) in " +
+        "production: uploaded files are kept in object storage, not in the local fake.",
     );
   }
 }

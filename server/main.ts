@@ -15,9 +15,11 @@ import {
 } from "./config";
 import { connectDatabase } from "./db/client";
 import { runMigrations } from "./db/migrate";
+import { startJobQueue } from "./jobs/queue";
 import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, smtpTarget } from "./mail/mailer";
 import { readyLine, seedDemo } from "./seed/demo";
+import { startStorage } from "./storage";
 
 export interface RunningRillmark {
   /** Where the server listens, with the real port (also when started with port 0). */
@@ -67,6 +69,15 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
     for (const cleanup of cleanups.reverse()) await cleanup();
   };
   try {
+    // Storage and jobs first: the demo seed loads its layers through the upload pipeline.
+    const storage = await startStorage(base.storage);
+    cleanups.push(() => storage.close());
+    const jobs = await startJobQueue({
+      connectionString: base.databaseUrl,
+      queueSuffix: base.jobQueueSuffix,
+      supervise: true,
+    });
+    cleanups.push(() => jobs.close());
     await seedDemo(db);
     let fakeSmtp: FakeSmtp | undefined;
     if (!base.smtp.host) {
@@ -94,7 +105,10 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
       publicBaseUrl: resolvePublicBaseUrl(base, port),
       fakeSmtpPort: fakeSmtp?.port ?? base.fakeSmtpPort,
     };
-    server.on("request", createApp(config, { db, sessionStore, mailer }));
+    server.on(
+      "request",
+      createApp(config, { db, sessionStore, mailer, store: storage.store, jobs }),
+    );
 
     let closing: Promise<void> | undefined;
     return { url, config, close: () => (closing ??= closeAll()) };

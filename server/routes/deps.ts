@@ -1,8 +1,10 @@
 import type { RateLimiters } from "../auth/rate-limits";
 import type { AppConfig } from "../config";
 import type { Db } from "../db/client";
+import type { JobQueue } from "../jobs/queue";
 import type { Mailer } from "../mail/mailer";
 import type { MailContent } from "../mail/templates";
+import type { ObjectStore } from "../storage";
 
 /** What every router is built from. */
 export interface RouteDeps {
@@ -10,6 +12,10 @@ export interface RouteDeps {
   config: AppConfig;
   mailer: Mailer;
   limiters: RateLimiters;
+  /** Uploaded originals and terrain files (localCopy() gives a seekable local file). */
+  store: ObjectStore;
+  /** Background jobs (pg-boss) and the news of layers they change. */
+  jobs: JobQueue;
 }
 
 /**

@@ -68,14 +68,41 @@ describe("configuration", () => {
     expect(() => loadConfig(env)).toThrow(/at least 32/);
   });
 
-  it("starts in production with a long secret and SMTP, and turns the outbox off", () => {
+  it("starts in production with a long secret, SMTP and S3, and turns the outbox off", () => {
     const config = loadConfig({
       DATABASE_URL: DB,
       NODE_ENV: "production",
       SMTP_HOST: "smtp.example.test",
       SESSION_SECRET: LONG_SECRET,
+      S3_ENDPOINT: "https://s3.example.test",
     });
     expect(config.outboxEnabled).toBe(false);
+    expect(config.storage.endpoint).toBe("https://s3.example.test");
+  });
+
+  it("refuses production without an S3 endpoint", () => {
+    expect(() =>
+      loadConfig({
+        DATABASE_URL: DB,
+        NODE_ENV: "production",
+        SESSION_SECRET: LONG_SECRET,
+        SMTP_HOST: "smtp.example.test",
+      }),
+    ).toThrow(/S3_ENDPOINT/);
+  });
+
+  it("reads upload limits per kind of file, in bytes", () => {
+    const config = loadConfig({
+      DATABASE_URL: DB,
+      UPLOAD_LIMIT_VECTOR_MB: "5",
+      UPLOAD_LIMIT_TERRAIN_MB: "7",
+      UPLOAD_LIMIT_RAINFALL_KB: "3",
+    });
+    expect(config.uploads.limitsBytes).toEqual({
+      vector: 5 * 1024 * 1024,
+      terrain: 7 * 1024 * 1024,
+      rainfall: 3 * 1024,
+    });
   });
 
   it("refuses production without an SMTP server", () => {

@@ -1,4 +1,7 @@
 import { randomUUID } from "node:crypto";
+import { mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { and, desc, eq, gte } from "drizzle-orm";
 import type { Express } from "express";
 import type pg from "pg";
@@ -10,7 +13,9 @@ import { loadConfig, type AppConfig } from "../../server/config";
 import { connectDatabase, type Db } from "../../server/db/client";
 import { memberships, outboxMessages, teams, users } from "../../server/db/schema";
 import { startFakeSmtp, type FakeSmtp } from "../../server/mail/fake-smtp";
+import { startJobQueue, type JobQueue } from "../../server/jobs/queue";
 import { createMailer } from "../../server/mail/mailer";
+import { startStorage, type ObjectStore } from "../../server/storage";
 import { ROLES, type Role } from "../../shared/roles";
 
 /** The origin test apps believe they are served from (what browsers would send as Origin). */
@@ -25,6 +30,10 @@ export interface TestApp {
   pool: pg.Pool;
   config: AppConfig;
   smtp: FakeSmtp;
+  /** The app's own object store (a local S3 fake in a temp folder). */
+  store: ObjectStore;
+  /** The app's own job queue (queue names unique to this app). */
+  jobs: JobQueue;
   /** A cookie-keeping client that sends our Origin, like the real client in a browser. */
   agent(): Agent;
   close(): Promise<void>;
@@ -37,10 +46,19 @@ function databaseUrl(): string {
 }
 
 /** A config for tests: limits high enough not to get in the way unless a test lowers them. */
-export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
+export function testConfig(overrides: Partial<AppConfig> = {}, tempDir?: string): AppConfig {
   const base = loadConfig({ DATABASE_URL: databaseUrl(), NODE_ENV: "test" });
+  const dir = tempDir ?? path.join(os.tmpdir(), "rillmark-test");
   return {
     ...base,
+    storage: {
+      ...base.storage,
+      fakeDir: path.join(dir, "s3"),
+      cacheDir: path.join(dir, "cache"),
+      fakePort: 0,
+    },
+    uploads: { ...base.uploads, dir: path.join(dir, "uploads") },
+    jobQueueSuffix: `-test-${randomUUID().slice(0, 8)}`,
     publicBaseUrl: TEST_ORIGIN,
     clientDist: "tests/support/no-client-build",
     rateLimits: {
@@ -54,11 +72,22 @@ export function testConfig(overrides: Partial<AppConfig> = {}): AppConfig {
   };
 }
 
-/** The real app on the real test database, with its own fake SMTP server on a random port. */
+/**
+ * The real app on the real test database, with its own fake SMTP and S3 servers on random
+ * ports, its own job queue and its own temp folder (removed on close).
+ */
 export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
-  const config = testConfig(overrides);
+  const tempDir = mkdtempSync(path.join(os.tmpdir(), "rillmark-test-"));
+  const config = testConfig(overrides, tempDir);
   const { pool, db } = connectDatabase(config.databaseUrl, 5);
   const smtp = await startFakeSmtp(db, 0);
+  const storage = await startStorage(config.storage);
+  const jobs = await startJobQueue({
+    connectionString: config.databaseUrl,
+    queueSuffix: config.jobQueueSuffix,
+    supervise: false,
+    deleteQueuesOnClose: true,
+  });
   const mailer = createMailer(
     {
       host: "127.0.0.1",
@@ -71,19 +100,24 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     config.mailFrom,
   );
   const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
-  const app = createApp(config, { db, sessionStore, mailer });
+  const app = createApp(config, { db, sessionStore, mailer, store: storage.store, jobs });
   return {
     app,
     db,
     pool,
     config,
     smtp,
+    store: storage.store,
+    jobs,
     agent: () => supertest.agent(app).set("Origin", config.publicBaseUrl),
     async close() {
       sessionStore.close();
       await mailer.close();
       await smtp.close();
+      await jobs.close();
+      await storage.close();
       if (!pool.ending) await pool.end();
+      rmSync(tempDir, { recursive: true, force: true });
     },
   };
 }

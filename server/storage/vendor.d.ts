@@ -1,0 +1,19 @@
+// Types for the part of s3rver (the local S3-compatible fake) that server/storage calls.
+declare module "s3rver" {
+  import type { AddressInfo } from "node:net";
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory?: string;
+    resetOnClose?: boolean;
+    allowMismatchedSignatures?: boolean;
+    vhostBuckets?: boolean;
+    configureBuckets?: { name: string }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<AddressInfo>;
+    close(): Promise<void>;
+  }
+}
