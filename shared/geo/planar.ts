@@ -17,6 +17,8 @@ export const ON_LINE_EPS_DEG = 1e-12;
  * Pushes onto `out` every parameter t ∈ (0, 1) of edge (ax, ay) → (bx, by) where it crosses
  * or touches the segment (cx, cy) → (dx, dy); a collinear overlap contributes both ends of the
  * overlap. Coordinates are taken relative to a to keep the cross products well conditioned.
+ * With `closed`, t = 0 and t = 1 (the edge's own ends) count too, and an overlap that covers
+ * the edge's start gives t = 0.
  */
 export function edgeSegmentParams(
   ax: number,
@@ -28,7 +30,9 @@ export function edgeSegmentParams(
   dx: number,
   dy: number,
   out: number[],
+  closed = false,
 ): void {
+  const push = closed ? pushClosed : pushOpen;
   const ex = bx - ax;
   const ey = by - ay;
   const px = cx - ax;
@@ -46,19 +50,27 @@ export function edgeSegmentParams(
     const offLine = Math.abs(ex * py - ey * px) / edgeLen;
     if (offLine > ON_LINE_EPS_DEG) return;
     const e2 = edgeLen * edgeLen;
-    pushOpen((px * ex + py * ey) / e2, out);
-    pushOpen((qx * ex + qy * ey) / e2, out);
+    const tc = (px * ex + py * ey) / e2;
+    const td = (qx * ex + qy * ey) / e2;
+    push(tc, out);
+    push(td, out);
+    if (closed && Math.min(tc, td) < 0 && Math.max(tc, td) > 0) out.push(0);
     return;
   }
   const t = (px * sy - py * sx) / denom;
   const u = (px * ey - py * ex) / denom;
   const uTol = ON_LINE_EPS_DEG / Math.max(segLen, ON_LINE_EPS_DEG);
   if (u < -uTol || u > 1 + uTol) return;
-  pushOpen(t, out);
+  push(t, out);
 }
 
 function pushOpen(t: number, out: number[]): void {
   if (t > 0 && t < 1) out.push(t);
+}
+
+/** Ends included, with the same tolerance as the on-line tests (relative to the edge). */
+function pushClosed(t: number, out: number[]): void {
+  if (t >= -1e-12 && t <= 1 + 1e-12) out.push(Math.min(Math.max(t, 0), 1));
 }
 
 /** Whether (x, y) lies on the segment (ax, ay) → (bx, by), within ON_LINE_EPS_DEG. */
