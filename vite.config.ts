@@ -22,6 +22,7 @@ export default defineConfig({
             "src/**/*.test.{ts,tsx}",
             "tests/cli/**/*.test.ts",
             "server/geodata/**/*.test.ts",
+            "demo-geo/**/*.test.ts",
           ],
         },
       },
