@@ -6,13 +6,14 @@
  * Coordinates are local site metres (see site.ts); the generator writes them in UTM.
  */
 import { difference, featureCollection, polygon } from "@turf/turf";
-import type { Polygon, MultiPolygon } from "geojson";
+import type { Polygon } from "geojson";
+import { nodeRings } from "./noding";
 import { SITE_SIZE_M, thalwegX, type XY } from "./site";
 
 export interface CoverPolygon {
   readonly landuse: string;
   readonly description: string;
-  readonly geometry: Polygon | MultiPolygon;
+  readonly geometry: Polygon;
 }
 
 const S = SITE_SIZE_M;
@@ -66,7 +67,7 @@ function drives(): XY[][] {
 }
 
 /** The lots' lawn: the band between the meadow and the road, less houses and drives. */
-function lotLawn(): Polygon | MultiPolygon {
+function lotLawn(): Polygon {
   let lawn = polygon([rect(LOTS_WEST_X, 0, ROAD_WEST_X, S).map((p) => [...p])]);
   for (const cut of [...houses(), ...drives()]) {
     const next = difference(featureCollection([lawn, polygon([cut.map((p) => [...p])])]));
@@ -78,7 +79,14 @@ function lotLawn(): Polygon | MultiPolygon {
   return lawn.geometry;
 }
 
+/** The cover, with shared edges noded so neighbours stay gap-free after reprojection. */
 export function coverPolygons(): CoverPolygon[] {
+  const raw = rawCover();
+  const noded = nodeRings(raw.map((c) => c.geometry.coordinates));
+  return raw.map((c, k) => ({ ...c, geometry: { type: "Polygon", coordinates: noded[k] ?? [] } }));
+}
+
+function rawCover(): CoverPolygon[] {
   const swaleWest = (y: number) => thalwegX(y) - SWALE_HALF_WIDTH_M;
   const swaleEast = (y: number) => thalwegX(y) + SWALE_HALF_WIDTH_M;
   return [

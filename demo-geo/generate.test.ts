@@ -160,6 +160,28 @@ describe("demo scenario generator", () => {
     expect(misses).toEqual([]);
   });
 
+  it("neighbouring cover polygons share every vertex of their common edges", async () => {
+    // A vertex of one polygon inside another's edge would become a sliver once both are
+    // reprojected to lon/lat (different chords), and a flow path could fall into it.
+    const cover = await coverInUtm();
+    const rings = cover.flatMap((c) => (c.geometry as Polygon).coordinates);
+    const vertices = rings.flat();
+    const unshared: string[] = [];
+    for (const ring of rings) {
+      for (let k = 0; k + 1 < ring.length; k += 1) {
+        const [ax = 0, ay = 0] = ring[k] ?? [];
+        const [bx = 0, by = 0] = ring[k + 1] ?? [];
+        const len = Math.hypot(bx - ax, by - ay);
+        for (const [px = 0, py = 0] of vertices) {
+          const t = ((px - ax) * (bx - ax) + (py - ay) * (by - ay)) / (len * len);
+          const off = Math.abs((px - ax) * (by - ay) - (py - ay) * (bx - ax)) / len;
+          if (t > 1e-9 && t < 1 - 1e-9 && off < 1e-6) unshared.push(`${px},${py}`);
+        }
+      }
+    }
+    expect(unshared).toEqual([]);
+  });
+
   it("the flow path crosses woods, meadow, a lot and its drive, the road and the swale", async () => {
     const cover = await coverInUtm();
     const { path } = await subcatchment();

@@ -20,10 +20,7 @@ const mm = (v: number) => Math.round(v * 1000) / 1000;
 
 function toUtm(geometry: CoverPolygon["geometry"]): Geometry {
   const ring = (r: Position[]) => r.map(([x = 0, y = 0]) => utmOf([x, y]).map(mm));
-  if (geometry.type === "Polygon") {
-    return { type: "Polygon", coordinates: geometry.coordinates.map(ring) };
-  }
-  return { type: "MultiPolygon", coordinates: geometry.coordinates.map((p) => p.map(ring)) };
+  return { type: "Polygon", coordinates: geometry.coordinates.map(ring) };
 }
 
 export function coverShapefileZip(cover: readonly CoverPolygon[]): Uint8Array {
