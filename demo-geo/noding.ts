@@ -40,7 +40,7 @@ export function nodeRings(polygons: readonly Ring[][]): Ring[][] {
           .sort((x, y) => x.t - y.t);
         for (const { v } of inside) {
           const last = out[out.length - 1];
-          if (last?.[0] !== v[0] || last[1] !== v[1]) out.push([...v]);
+          if (last === undefined || last[0] !== v[0] || last[1] !== v[1]) out.push([...v]);
         }
       }
       out.push(ring[ring.length - 1] as Position);
