@@ -13,12 +13,15 @@ import type { JobQueue } from "./jobs/queue";
 import type { Mailer } from "./mail/mailer";
 import { accountRouter } from "./routes/account";
 import { authRouter } from "./routes/auth";
+import { catalogRouter } from "./routes/catalog";
 import { configRouter } from "./routes/config";
 import type { RouteDeps } from "./routes/deps";
+import { designRulesRouter } from "./routes/design-rules";
 import { invitationLinkRouter, teamInvitationsRouter } from "./routes/invitations";
 import { membersRouter } from "./routes/members";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
+import { rainfallRouter } from "./routes/rainfall";
 import { teamsRouter } from "./routes/teams";
 import type { ObjectStore } from "./storage";
 
@@ -72,6 +75,9 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     teamInvitationsRouter,
     projectsRouter,
     outboxRouter,
+    catalogRouter,
+    designRulesRouter,
+    rainfallRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);

@@ -17,6 +17,7 @@ import { emailConfirmations, memberships, passwordResets, teams, users } from ".
 import { HttpError, linkExpired, notFound } from "../http/errors";
 import { validate } from "../http/validate";
 import { confirmEmailMail, passwordResetMail, signUpExistingMail } from "../mail/templates";
+import { ensureTeamCatalog } from "../geodata/catalog-seed";
 import { sendInBackground, type RouteDeps } from "./deps";
 
 const accountExists = () =>
@@ -119,6 +120,7 @@ export function authRouter(deps: RouteDeps): Router {
           .returning({ id: teams.id });
         if (!user || !team) throw new Error("insert returned no row");
         await tx.insert(memberships).values({ teamId: team.id, userId: user.id, role: "owner" });
+        await ensureTeamCatalog(tx, team.id);
         await tx
           .update(emailConfirmations)
           .set({ usedAt: new Date() })

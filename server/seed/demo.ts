@@ -3,6 +3,7 @@ import type { Role } from "../../shared/roles";
 import { hashPassword } from "../auth/password";
 import type { Db } from "../db/client";
 import { memberships, projects, seedRuns, teams, users } from "../db/schema";
+import { ensureTeamCatalog } from "../geodata/catalog-seed";
 
 export const DEMO_SEED_NAME = "demo-v1";
 export const DEMO_PASSWORD = "rillmark-demo";
@@ -51,6 +52,7 @@ export async function seedDemo(db: Db): Promise<boolean> {
 
     const [team] = await tx.insert(teams).values({ name: DEMO_TEAM_NAME }).returning();
     if (!team) throw new Error("demo team insert returned no row");
+    await ensureTeamCatalog(tx, team.id);
     let engineerId: string | null = null;
     for (const [i, account] of DEMO_ACCOUNTS.entries()) {
       await tx

@@ -79,3 +79,25 @@ export interface SurfaceClassDto {
   /** Present in a project's view: the project's changes to this class. */
   override?: { values: Partial<SurfaceValues>; note: string } | null;
 }
+
+export const createSurfaceClassBody = z.strictObject({
+  key: surfaceKeySchema,
+  name: z.string().trim().min(1, "Enter a name.").max(120, "Use at most 120 characters."),
+  description: z.string().trim().max(1000).default(""),
+  values: surfaceValuesSchema,
+});
+export type CreateSurfaceClassBody = z.input<typeof createSurfaceClassBody>;
+
+export const updateSurfaceClassBody = createSurfaceClassBody
+  .omit({ key: true })
+  .partial()
+  .extend({ key: surfaceKeySchema.optional() });
+
+/** A project's changes to one team class: any subset of the values, each with its source. */
+export const surfaceOverrideBody = z.strictObject({
+  values: surfaceValuesSchema.partial().refine((v) => Object.keys(v).length > 0, {
+    message: "Change at least one value.",
+  }),
+  note: z.string().trim().max(500).default(""),
+});
+export type SurfaceOverrideBody = z.input<typeof surfaceOverrideBody>;

@@ -1,0 +1,147 @@
+/**
+ * The travel-time sheet of a subcatchment: its flow path cut into ordered segments (cover,
+ * soil, regime, slope), every method's travel times and totals, the governing Tc with its
+ * reason, the subcatchment's figures and the peak flow. Numbers are in the project's units
+ * (`unitLabels`), times in minutes and hours; a figure that cannot be had is null, never NaN.
+ */
+import { z } from "zod";
+import { METHOD_IDS } from "../hydrology/method-ids";
+
+const num = z.number();
+const maybe = num.nullable();
+
+export const ELEVATION_SOURCES = ["terrain", "survey", "mixed"] as const;
+
+export const sheetSegmentSchema = z.object({
+  index: z.number().int(),
+  stationFrom: num,
+  stationTo: num,
+  length: num,
+  /** The same stretch in metres (what the split works in). */
+  stationFromM: num,
+  stationToM: num,
+  regime: z.enum(["sheet", "shallow", "channel"]),
+  surfaceClassId: z.string().nullable(),
+  surfaceClassKey: z.string().nullable(),
+  surfaceClassName: z.string().nullable(),
+  /** Soil group as mapped (dual groups kept) and as used after the design rule. */
+  hsgMapped: z.string().nullable(),
+  hsg: z.enum(["A", "B", "C", "D"]).nullable(),
+  n: maybe,
+  k: maybe,
+  kSource: z.string().nullable(),
+  kerbyN: maybe,
+  manningN: maybe,
+  cn: maybe,
+  elevationUp: maybe,
+  elevationDown: maybe,
+  elevationSource: z.enum(ELEVATION_SOURCES).nullable(),
+  slope: maybe,
+  /** Mean velocity by the velocity method (V = k·s^0.5, Manning in channels). */
+  velocity: maybe,
+  /** Travel time of this segment by each method that computes per segment (minutes). */
+  timesMin: z.partialRecord(z.enum(METHOD_IDS), maybe),
+  warnings: z.array(z.string()),
+  /** What keeps this segment from being computed (zero or adverse slope, a missing value). */
+  error: z.string().nullable(),
+});
+export type SheetSegment = z.output<typeof sheetSegmentSchema>;
+
+export const sheetMethodSchema = z.object({
+  id: z.enum(METHOD_IDS),
+  label: z.string(),
+  kind: z.enum(["method", "check"]),
+  source: z.string(),
+  status: z.enum(["ok", "unavailable"]),
+  scope: z.enum(["whole-path", "overland"]).nullable(),
+  computedMin: maybe,
+  totalMin: maybe,
+  totalHr: maybe,
+  minimumApplied: z.boolean(),
+  reason: z.string().nullable(),
+  validity: z.object({ range: z.string(), outside: z.array(z.string()) }).nullable(),
+});
+export type SheetMethod = z.output<typeof sheetMethodSchema>;
+
+export const sheetWarningSchema = z.object({
+  code: z.string(),
+  message: z.string(),
+  segmentIndex: z.number().int().optional(),
+  method: z.enum(METHOD_IDS).optional(),
+});
+export type SheetWarning = z.output<typeof sheetWarningSchema>;
+
+export const pathPieceSchema = z.object({
+  stationFromM: num,
+  stationToM: num,
+  lengthM: num,
+  surfaceClassId: z.string().nullable(),
+  hsg: z.string().nullable(),
+  coverFeatureId: z.number().int().nullable(),
+  soilFeatureId: z.number().int().nullable(),
+});
+
+export const travelTimeSheetSchema = z.object({
+  caution: z.string(),
+  project: z.object({ id: z.string(), name: z.string() }),
+  subcatchment: z.object({ id: z.string(), name: z.string(), scenario: z.string() }),
+  flowPathVersion: z.number().int(),
+  computedAt: z.string(),
+  units: z.enum(["us", "si"]),
+  unitLabels: z.record(z.string(), z.string()),
+  returnPeriodYears: num,
+  totalLength: num,
+  /** The outlet end lies higher than the top: the path is probably drawn the wrong way. */
+  reversed: z.boolean(),
+  breaks: z.object({
+    sheetEnd: maybe,
+    sheetEndSource: z.enum(["user", "design-rule", "none"]),
+    channelStart: maybe,
+    channelStartSource: z.enum(["user", "channel-layer", "none"]),
+  }),
+  segments: z.array(sheetSegmentSchema),
+  methods: z.array(sheetMethodSchema),
+  governing: z
+    .object({
+      method: z.enum(METHOD_IDS),
+      label: z.string(),
+      tcMin: num,
+      tcHr: num,
+      reason: z.string(),
+    })
+    .nullable(),
+  peakFlow: z
+    .object({
+      value: num,
+      unit: z.string(),
+      c: num,
+      cf: num,
+      cfTimesC: num,
+      intensity: num,
+      durationMin: num,
+      area: num,
+      returnPeriodYears: num,
+    })
+    .nullable(),
+  figures: z.object({
+    area: maybe,
+    cn: maybe,
+    c: maybe,
+    avgSlopePercent: maybe,
+    notes: z.array(z.string()),
+  }),
+  /** Warnings that concern no single segment (the segments carry their own too). */
+  warnings: z.array(sheetWarningSchema),
+  /** What keeps the methods from running at all; empty when they ran. */
+  problems: z.array(z.string()),
+  profile: z.array(z.object({ station: num, elevation: maybe })),
+  rules: z.record(z.string(), z.unknown()).nullable(),
+  rainfall: z.object({ tableId: z.string(), name: z.string(), sourceNote: z.string() }).nullable(),
+  /** The split as computed (metres), and the features it used, so a client can check it. */
+  split: z.object({
+    pieces: z.array(pathPieceSchema),
+    coverFeatureIds: z.array(z.number().int()),
+    soilFeatureIds: z.array(z.number().int()),
+  }),
+});
+export type TravelTimeSheet = z.output<typeof travelTimeSheetSchema>;
