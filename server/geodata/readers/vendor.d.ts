@@ -13,6 +13,7 @@ declare module "shpjs" {
 declare module "@mapbox/togeojson" {
   import type { FeatureCollection, Geometry } from "geojson";
   type Collection = FeatureCollection<Geometry | null, Record<string, unknown> | null>;
-  export function kml(doc: Document): Collection;
-  export function gpx(doc: Document): Collection;
+  // A UMD bundle: Node's ESM loader sees only its default export.
+  const togeojson: { kml(doc: Document): Collection; gpx(doc: Document): Collection };
+  export default togeojson;
 }
