@@ -32,6 +32,15 @@ export function edgeSegmentParams(
   out: number[],
   closed = false,
 ): void {
+  // Most ring segments near an edge miss it: reject them by their boxes before any arithmetic.
+  if (
+    Math.max(cx, dx) < Math.min(ax, bx) - ON_LINE_EPS_DEG ||
+    Math.min(cx, dx) > Math.max(ax, bx) + ON_LINE_EPS_DEG ||
+    Math.max(cy, dy) < Math.min(ay, by) - ON_LINE_EPS_DEG ||
+    Math.min(cy, dy) > Math.max(ay, by) + ON_LINE_EPS_DEG
+  ) {
+    return;
+  }
   const push = closed ? pushClosed : pushOpen;
   const ex = bx - ax;
   const ey = by - ay;
@@ -42,8 +51,8 @@ export function edgeSegmentParams(
   const sx = qx - px;
   const sy = qy - py;
   const denom = ex * sy - ey * sx;
-  const edgeLen = Math.hypot(ex, ey);
-  const segLen = Math.hypot(sx, sy);
+  const edgeLen = Math.sqrt(ex * ex + ey * ey);
+  const segLen = Math.sqrt(sx * sx + sy * sy);
   if (edgeLen === 0) return;
   if (Math.abs(denom) <= ON_LINE_EPS_DEG * edgeLen * Math.max(segLen, ON_LINE_EPS_DEG)) {
     // Parallel: only a collinear overlap matters; its ends are where the class may change.
@@ -79,8 +88,8 @@ function onSegment(x: number, y: number, ax: number, ay: number, bx: number, by:
   const ey = by - ay;
   const px = x - ax;
   const py = y - ay;
-  const len = Math.hypot(ex, ey);
-  if (len === 0) return Math.hypot(px, py) <= ON_LINE_EPS_DEG;
+  const len = Math.sqrt(ex * ex + ey * ey);
+  if (len === 0) return Math.sqrt(px * px + py * py) <= ON_LINE_EPS_DEG;
   if (Math.abs(ex * py - ey * px) / len > ON_LINE_EPS_DEG) return false;
   const along = (px * ex + py * ey) / len;
   return along >= -ON_LINE_EPS_DEG && along <= len + ON_LINE_EPS_DEG;
@@ -93,7 +102,8 @@ function onSegment(x: number, y: number, ax: number, ay: number, bx: number, by:
  */
 export function pointInRings(x: number, y: number, rings: readonly Float64Array[]): boolean {
   let inside = false;
-  for (const ring of rings) {
+  for (let r = 0; r < rings.length; r += 1) {
+    const ring = rings[r]!;
     const n = ring.length - 2;
     for (let i = 0; i < n; i += 2) {
       const ax = ring[i]!;

@@ -11,7 +11,7 @@
  */
 import Flatbush from "flatbush";
 import { geodesicAreaM2 } from "./geodesic";
-import { pointInRings } from "./planar";
+import { ON_LINE_EPS_DEG, pointInRings } from "./planar";
 import type { ValuedPolygon } from "./types";
 
 export interface PolygonIndex<V> {
@@ -23,6 +23,8 @@ export interface PolygonIndex<V> {
   readonly rings: readonly (readonly Float64Array[])[];
   /** Precedence of each entry under the overlap rule: the lower rank wins. */
   readonly rank: Int32Array;
+  /** Bounding box of each entry's outer ring: minX, minY, maxX, maxY at 4·entry. */
+  readonly boxes: Float64Array;
   /** Entries whose bounding box touches the given box, in no particular order. */
   search(minX: number, minY: number, maxX: number, maxY: number): number[];
 }
@@ -77,6 +79,7 @@ export function buildPolygonIndex<V>(
 ): PolygonIndex<V> {
   const rings = polygons.map((p) => p.rings.map((ring) => flatRing(p.featureId, ring)));
   const tree = polygons.length > 0 ? new Flatbush(polygons.length) : null;
+  const boxes = new Float64Array(polygons.length * 4);
   rings.forEach((entry, i) => {
     const outer = entry[0];
     if (!outer) throw new RangeError(`feature ${polygons[i]!.featureId}: a polygon has no ring`);
@@ -90,6 +93,7 @@ export function buildPolygonIndex<V>(
       minY = Math.min(minY, outer[k + 1]!);
       maxY = Math.max(maxY, outer[k + 1]!);
     }
+    boxes.set([minX, minY, maxX, maxY], 4 * i);
     tree!.add(minX, minY, maxX, maxY);
   });
   tree?.finish();
@@ -99,6 +103,7 @@ export function buildPolygonIndex<V>(
     featureIds: polygons.map((p) => p.featureId),
     rings,
     rank: ranksBySmallestArea(polygons),
+    boxes,
     search: (minX, minY, maxX, maxY) => (tree ? tree.search(minX, minY, maxX, maxY) : []),
   };
 }
@@ -114,8 +119,20 @@ export function winnerAt<V>(
   y: number,
 ): number {
   let best = -1;
-  for (const entry of candidates) {
-    if (best >= 0 && index.rank[entry]! > index.rank[best]!) continue;
+  const { boxes, rank } = index;
+  for (let i = 0; i < candidates.length; i += 1) {
+    const entry = candidates[i]!;
+    if (best >= 0 && rank[entry]! > rank[best]!) continue;
+    const b = 4 * entry;
+    const e = ON_LINE_EPS_DEG;
+    if (
+      x < boxes[b]! - e ||
+      y < boxes[b + 1]! - e ||
+      x > boxes[b + 2]! + e ||
+      y > boxes[b + 3]! + e
+    ) {
+      continue;
+    }
     if (pointInRings(x, y, index.rings[entry]!)) best = entry;
   }
   return best;

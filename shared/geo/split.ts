@@ -13,8 +13,8 @@
  * merged piece keeps the feature ids where it starts. A stretch outside every cover polygon has
  * surfaceClassId null (and coverFeatureId null); the compute step reports it as unmapped.
  */
-import { lerpLonLat, pathLengthsM, stationOnEdgeM, type PathLengths } from "./geodesic";
-import { edgeSegmentParams } from "./planar";
+import { pathLengthsM, stationOnEdgeM, type PathLengths } from "./geodesic";
+import { ON_LINE_EPS_DEG, edgeSegmentParams } from "./planar";
 import { winnerAt, type PolygonIndex } from "./polygon-index";
 import type { HsgCode, LonLat, PathPiece } from "./types";
 
@@ -30,29 +30,26 @@ function collectParams<V>(
   b: LonLat,
   out: number[],
 ): void {
-  for (const entry of candidates) {
-    for (const ring of index.rings[entry]!) {
+  const [ax, ay] = a;
+  const [bx, by] = b;
+  for (let c = 0; c < candidates.length; c += 1) {
+    const rings = index.rings[candidates[c]!]!;
+    for (let r = 0; r < rings.length; r += 1) {
+      const ring = rings[r]!;
       for (let k = 0; k + 3 < ring.length; k += 2) {
-        edgeSegmentParams(
-          a[0],
-          a[1],
-          b[0],
-          b[1],
-          ring[k]!,
-          ring[k + 1]!,
-          ring[k + 2]!,
-          ring[k + 3]!,
-          out,
-        );
+        edgeSegmentParams(ax, ay, bx, by, ring[k]!, ring[k + 1]!, ring[k + 2]!, ring[k + 3]!, out);
       }
     }
   }
 }
 
-/** Sorted break parameters of one edge, 0 and 1 included, near-duplicates dropped. */
-function breakParams(raw: number[]): number[] {
-  raw.sort((x, y) => x - y);
-  const out = [0];
+const ascending = (x: number, y: number) => x - y;
+
+/** Sorted break parameters of one edge into `out`, 0 and 1 included, near-duplicates dropped. */
+function breakParams(raw: number[], out: number[]): number[] {
+  if (raw.length > 1) raw.sort(ascending);
+  out.length = 0;
+  out.push(0);
   for (const t of raw) {
     if (t - out[out.length - 1]! > SAME_T && t < 1 - SAME_T) out.push(t);
   }
@@ -81,42 +78,139 @@ export function splitFlowPath(
 ): PathPiece[] {
   assertUsablePath(path);
   const pieces: MutablePiece[] = [];
-  const raw: number[] = [];
-  for (let edge = 0; edge + 1 < path.length; edge += 1) {
-    if (lengths.edgeLengthsM[edge] === 0) continue; // a repeated vertex adds nothing
-    const a = path[edge]!;
-    const b = path[edge + 1]!;
-    const minX = Math.min(a[0], b[0]);
-    const minY = Math.min(a[1], b[1]);
-    const maxX = Math.max(a[0], b[0]);
-    const maxY = Math.max(a[1], b[1]);
-    const coverHits = cover.search(minX, minY, maxX, maxY);
-    const soilHits = soil.search(minX, minY, maxX, maxY);
-    raw.length = 0;
-    collectParams(cover, coverHits, a, b, raw);
-    collectParams(soil, soilHits, a, b, raw);
-    const ts = breakParams(raw);
-    let fromM = lengths.cumulativeM[edge]!;
-    for (let k = 0; k + 1 < ts.length; k += 1) {
-      const t1 = ts[k + 1]!;
-      const toM = stationOnEdgeM(path, lengths, edge, t1);
-      if (toM <= fromM) continue;
-      const [mx, my] = lerpLonLat(a, b, (ts[k]! + t1) / 2);
-      const c = winnerAt(cover, coverHits, mx, my);
-      const s = winnerAt(soil, soilHits, mx, my);
-      append(pieces, {
+  const scratch: Scratch = { raw: [], ts: [], coverNear: [], soilNear: [] };
+  const edgeM = lengths.edgeLengthsM;
+  // One index search serves a run of short edges (searching per edge costs more than the
+  // edge's own tests); each edge then keeps the run's candidates whose boxes touch it.
+  for (let first = 0; first + 1 < path.length;) {
+    let last = first + 1;
+    let runM = edgeM[first]!;
+    while (last + 1 < path.length && last - first < RUN_EDGES && runM + edgeM[last]! <= RUN_M) {
+      runM += edgeM[last]!;
+      last += 1;
+    }
+    const [minX, minY, maxX, maxY] = boxOf(path, first, last);
+    const coverRun = cover.search(minX, minY, maxX, maxY);
+    const soilRun = soil.search(minX, minY, maxX, maxY);
+    for (let edge = first; edge < last; edge += 1) {
+      if (edgeM[edge] !== 0)
+        splitEdge(path, lengths, edge, cover, coverRun, soil, soilRun, scratch, pieces);
+    }
+    first = last;
+  }
+  return pieces;
+}
+
+/** Runs of at most 32 edges and 50 m share one search: a few cells of a typical cover layer. */
+const RUN_EDGES = 32;
+const RUN_M = 50;
+
+/** Arrays reused from edge to edge (allocation, not arithmetic, dominated the profile). */
+interface Scratch {
+  raw: number[];
+  ts: number[];
+  coverNear: number[];
+  soilNear: number[];
+}
+
+function boxOf(
+  path: readonly LonLat[],
+  from: number,
+  to: number,
+): [number, number, number, number] {
+  let minX = Infinity;
+  let minY = Infinity;
+  let maxX = -Infinity;
+  let maxY = -Infinity;
+  for (let k = from; k <= to; k += 1) {
+    const [x, y] = path[k]!;
+    if (x < minX) minX = x;
+    if (x > maxX) maxX = x;
+    if (y < minY) minY = y;
+    if (y > maxY) maxY = y;
+  }
+  return [minX, minY, maxX, maxY];
+}
+
+/** The entries of `run` whose boxes touch the edge a → b (inclusive, like flatbush). */
+function near<V>(
+  index: PolygonIndex<V>,
+  run: readonly number[],
+  a: LonLat,
+  b: LonLat,
+  out: number[],
+) {
+  out.length = 0;
+  const { boxes } = index;
+  const e = ON_LINE_EPS_DEG;
+  const minX = Math.min(a[0], b[0]) - e;
+  const maxX = Math.max(a[0], b[0]) + e;
+  const minY = Math.min(a[1], b[1]) - e;
+  const maxY = Math.max(a[1], b[1]) + e;
+  for (let i = 0; i < run.length; i += 1) {
+    const entry = run[i]!;
+    const k = 4 * entry;
+    if (
+      boxes[k]! <= maxX &&
+      boxes[k + 2]! >= minX &&
+      boxes[k + 1]! <= maxY &&
+      boxes[k + 3]! >= minY
+    ) {
+      out.push(entry);
+    }
+  }
+  return out;
+}
+
+function splitEdge(
+  path: readonly LonLat[],
+  lengths: PathLengths,
+  edge: number,
+  cover: PolygonIndex<string | null>,
+  coverRun: readonly number[],
+  soil: PolygonIndex<HsgCode | null>,
+  soilRun: readonly number[],
+  scratch: Scratch,
+  pieces: MutablePiece[],
+): void {
+  const a = path[edge]!;
+  const b = path[edge + 1]!;
+  const coverHits = near(cover, coverRun, a, b, scratch.coverNear);
+  const soilHits = near(soil, soilRun, a, b, scratch.soilNear);
+  const raw = scratch.raw;
+  if (raw.length > 0) raw.length = 0;
+  collectParams(cover, coverHits, a, b, raw);
+  collectParams(soil, soilHits, a, b, raw);
+  const ts = breakParams(raw, scratch.ts);
+  let fromM = lengths.cumulativeM[edge]!;
+  for (let k = 0; k + 1 < ts.length; k += 1) {
+    const t1 = ts[k + 1]!;
+    const toM = stationOnEdgeM(path, lengths, edge, t1);
+    if (toM <= fromM) continue;
+    const tMid = (ts[k]! + t1) / 2;
+    const mx = a[0] + (b[0] - a[0]) * tMid;
+    const my = a[1] + (b[1] - a[1]) * tMid;
+    const c = winnerAt(cover, coverHits, mx, my);
+    const s = winnerAt(soil, soilHits, mx, my);
+    const surfaceClassId = c < 0 ? null : cover.values[c]!;
+    const hsg = s < 0 ? null : soil.values[s]!;
+    const last = pieces[pieces.length - 1];
+    if (last && last.surfaceClassId === surfaceClassId && last.hsg === hsg) {
+      last.stationToM = toM;
+      last.lengthM = toM - last.stationFromM;
+    } else {
+      pieces.push({
         stationFromM: fromM,
         stationToM: toM,
         lengthM: toM - fromM,
-        surfaceClassId: c < 0 ? null : cover.values[c]!,
-        hsg: s < 0 ? null : soil.values[s]!,
+        surfaceClassId,
+        hsg,
         coverFeatureId: c < 0 ? null : cover.featureIds[c]!,
         soilFeatureId: s < 0 ? null : soil.featureIds[s]!,
       });
-      fromM = toM;
     }
+    fromM = toM;
   }
-  return pieces;
 }
 
 function append(pieces: MutablePiece[], piece: MutablePiece): void {
