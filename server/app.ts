@@ -18,6 +18,8 @@ import { configRouter } from "./routes/config";
 import type { RouteDeps } from "./routes/deps";
 import { designRulesRouter } from "./routes/design-rules";
 import { invitationLinkRouter, teamInvitationsRouter } from "./routes/invitations";
+import { layerMappingRouter } from "./routes/layer-mapping";
+import { layersRouter } from "./routes/layers";
 import { membersRouter } from "./routes/members";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
@@ -78,6 +80,8 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     catalogRouter,
     designRulesRouter,
     rainfallRouter,
+    layersRouter,
+    layerMappingRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);

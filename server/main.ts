@@ -16,6 +16,7 @@ import {
 import { connectDatabase } from "./db/client";
 import { runMigrations } from "./db/migrate";
 import { startJobQueue } from "./jobs/queue";
+import { startWorkers } from "./jobs/workers";
 import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, smtpTarget } from "./mail/mailer";
 import { readyLine, seedDemo } from "./seed/demo";
@@ -78,6 +79,7 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
       supervise: true,
     });
     cleanups.push(() => jobs.close());
+    await startWorkers({ db, store: storage.store, jobs, config: base });
     await seedDemo(db);
     let fakeSmtp: FakeSmtp | undefined;
     if (!base.smtp.host) {

@@ -5,6 +5,8 @@ export const LAYER_INGEST_QUEUE = "layer-ingest";
 
 export interface IngestJobData {
   layerId: string;
+  /** The upload's temp file, used when the worker runs on the same machine (else downloaded). */
+  uploadPath?: string;
 }
 
 /** The job queue (pg-boss, in PostgreSQL) and the news of layers its jobs change. */
@@ -15,6 +17,8 @@ export interface JobQueue {
   /** Queues the reading of an uploaded layer; answers the job id. */
   sendIngest(data: IngestJobData): Promise<string>;
   deleteJob(jobId: string): Promise<void>;
+  /** Remembers a worker of this process, so a new job wakes it at once instead of a poll. */
+  addIngestWorker(workerId: string): void;
   close(): Promise<void>;
 }
 
@@ -44,6 +48,7 @@ export async function startJobQueue(options: JobQueueOptions): Promise<JobQueue>
     retryLimit: 1,
     expireInSeconds: 30 * 60,
   });
+  const ingestWorkers: string[] = [];
   return {
     boss,
     ingestQueue,
@@ -51,7 +56,11 @@ export async function startJobQueue(options: JobQueueOptions): Promise<JobQueue>
     async sendIngest(data) {
       const id = await boss.send(ingestQueue, data);
       if (!id) throw new Error("the job queue refused the ingest job");
+      for (const worker of ingestWorkers) boss.notifyWorker(worker);
       return id;
+    },
+    addIngestWorker(workerId) {
+      ingestWorkers.push(workerId);
     },
     async deleteJob(jobId) {
       await boss.deleteJob(ingestQueue, jobId);

@@ -5,6 +5,7 @@ import {
   freshProject,
   outboxFixture,
   ROUTE_CASES,
+  sendCase,
   type RouteFixture,
 } from "../support/route-table";
 
@@ -46,14 +47,19 @@ describe("another team's user", () => {
         "GET /api/projects/:projectId",
         "PATCH /api/projects/:projectId",
         "DELETE /api/projects/:projectId",
+        "POST /api/projects/:projectId/layers",
+        "GET /api/projects/:projectId/layers",
+        "GET /api/layers/:layerId",
+        "DELETE /api/layers/:layerId",
+        "GET /api/layers/:layerId/features",
+        "GET /api/layers/:layerId/fields/:field/values",
+        "PUT /api/layers/:layerId/mapping",
       ].sort(),
     );
   });
 
   it.each(TEAM_ROUTES)("gets 404 not_found on $method $route", async (routeCase) => {
-    const { path, body } = await routeCase.prepare(fixture);
-    const req = outsider[routeCase.method](path);
-    const res = body === undefined ? await req : await req.send(body);
+    const res = await sendCase(outsider, routeCase.method, await routeCase.prepare(fixture));
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe("not_found");
   });

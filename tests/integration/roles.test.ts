@@ -13,6 +13,7 @@ import {
   freshProject,
   outboxFixture,
   ROUTE_CASES,
+  sendCase,
   type Caller,
   type RouteFixture,
 } from "../support/route-table";
@@ -47,9 +48,7 @@ describe.each(ROUTE_CASES)("$method $route", (routeCase) => {
     async ({ caller, status }) => {
       const agent = agents.get(caller);
       if (!agent) throw new Error(`no agent for ${caller}`);
-      const { path, body } = await routeCase.prepare(fixture);
-      const req = agent[routeCase.method](path);
-      const res = body === undefined ? await req : await req.send(body);
+      const res = await sendCase(agent, routeCase.method, await routeCase.prepare(fixture));
       expect(res.status, JSON.stringify(res.body)).toBe(status);
       if (status >= 400) {
         const code = { 401: "unauthenticated", 403: "forbidden", 404: "not_found" }[status];

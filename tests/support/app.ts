@@ -14,6 +14,7 @@ import { connectDatabase, type Db } from "../../server/db/client";
 import { memberships, outboxMessages, teams, users } from "../../server/db/schema";
 import { startFakeSmtp, type FakeSmtp } from "../../server/mail/fake-smtp";
 import { startJobQueue, type JobQueue } from "../../server/jobs/queue";
+import { startWorkers } from "../../server/jobs/workers";
 import { createMailer } from "../../server/mail/mailer";
 import { startStorage, type ObjectStore } from "../../server/storage";
 import { ROLES, type Role } from "../../shared/roles";
@@ -88,6 +89,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     supervise: false,
     deleteQueuesOnClose: true,
   });
+  await startWorkers({ db, store: storage.store, jobs, config });
   const mailer = createMailer(
     {
       host: "127.0.0.1",

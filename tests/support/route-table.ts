@@ -1,9 +1,20 @@
 import { randomBytes } from "node:crypto";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { hashToken } from "../../server/auth/tokens";
 import type { Db } from "../../server/db/client";
 import { invitations, outboxMessages, projects } from "../../server/db/schema";
+import { layers } from "../../server/db/schema-geodata";
 import type { Role } from "../../shared/roles";
-import { addMember, createUser, TEST_PASSWORD, uniqueEmail, type TestTeam } from "./app";
+import {
+  addMember,
+  createUser,
+  TEST_PASSWORD,
+  uniqueEmail,
+  type Agent,
+  type TestTeam,
+} from "./app";
 
 /** The objects a route case acts on: one team (one member per role) with one project. */
 export interface RouteFixture {
@@ -15,14 +26,20 @@ export interface RouteFixture {
 
 export type Caller = Role | "anonymous";
 
+/** A multipart body: text fields, then one file (upload routes). */
+export interface RouteUpload {
+  fields: Record<string, string>;
+  file: string;
+}
+
 export interface RouteCase {
-  method: "get" | "post" | "patch" | "delete";
+  method: "get" | "post" | "put" | "patch" | "delete";
   /** The route as the API contract writes it. */
   route: string;
   /** Team and project routes must answer 404 to members of other teams. */
   teamScoped: boolean;
   /** Builds the concrete request; destructive cases make a fresh target each time. */
-  prepare(f: RouteFixture): Promise<{ path: string; body?: object }>;
+  prepare(f: RouteFixture): Promise<{ path: string; body?: object; upload?: RouteUpload }>;
   expected: Record<Caller, number>;
 }
 
@@ -79,6 +96,48 @@ export async function outboxFixture(db: Db): Promise<string> {
     .returning({ id: outboxMessages.id });
   if (!row) throw new Error("outbox insert returned no row");
   return row.id;
+}
+
+/** A ready cover layer with one field and no features, straight in the database. */
+export async function freshLayer(db: Db, projectId: string): Promise<string> {
+  const [row] = await db
+    .insert(layers)
+    .values({
+      projectId,
+      kind: "cover",
+      name: "Route test layer",
+      format: "geojson",
+      originalFilename: "route.geojson",
+      sizeBytes: 1,
+      status: "ready",
+      fields: ["C"],
+    })
+    .returning({ id: layers.id });
+  if (!row) throw new Error("layer insert returned no row");
+  return row.id;
+}
+
+let routeUploadFile: string | undefined;
+function smallGeoJson(): string {
+  if (!routeUploadFile) {
+    routeUploadFile = path.join(
+      mkdtempSync(path.join(os.tmpdir(), "rillmark-route-")),
+      "a.geojson",
+    );
+    const ring = [
+      [-122.4, 37.7],
+      [-122.399, 37.7],
+      [-122.399, 37.701],
+      [-122.4, 37.7],
+    ];
+    const geometry = { type: "Polygon", coordinates: [ring] };
+    const feature = { type: "Feature", geometry, properties: { C: "lawn" } };
+    writeFileSync(
+      routeUploadFile,
+      JSON.stringify({ type: "FeatureCollection", features: [feature] }),
+    );
+  }
+  return routeUploadFile;
 }
 
 const project = { name: "Culvert study", units: "us", designReturnPeriodYears: 10 };
@@ -226,4 +285,77 @@ export const ROUTE_CASES: RouteCase[] = [
     prepare: async (f) => ({ path: `/api/outbox/${f.outboxId}` }),
     expected: table(200, 200, 404, 404, 404, 404),
   },
+  {
+    method: "post",
+    route: "/api/projects/:projectId/layers",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/projects/${f.projectId}/layers`,
+      upload: { fields: { kind: "cover" }, file: smallGeoJson() },
+    }),
+    expected: table(201, 201, 403, 201, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/projects/:projectId/layers",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/projects/${f.projectId}/layers` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "get",
+    route: "/api/layers/:layerId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/layers/${await freshLayer(f.db, f.projectId)}` }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "delete",
+    route: "/api/layers/:layerId",
+    teamScoped: true,
+    prepare: async (f) => ({ path: `/api/layers/${await freshLayer(f.db, f.projectId)}` }),
+    expected: table(204, 204, 403, 204, 403, 403),
+  },
+  {
+    method: "get",
+    route: "/api/layers/:layerId/features",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/layers/${await freshLayer(f.db, f.projectId)}/features`,
+    }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "get",
+    route: "/api/layers/:layerId/fields/:field/values",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/layers/${await freshLayer(f.db, f.projectId)}/fields/C/values`,
+    }),
+    expected: table(200, 200, 200, 200, 200, 200),
+  },
+  {
+    method: "put",
+    route: "/api/layers/:layerId/mapping",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/layers/${await freshLayer(f.db, f.projectId)}/mapping`,
+      body: { field: "C", entries: [] },
+    }),
+    expected: table(200, 200, 403, 200, 403, 403),
+  },
 ];
+
+/** Sends a route case's request: JSON body, multipart upload, or neither. */
+export function sendCase(
+  agent: Agent,
+  method: RouteCase["method"],
+  prepared: { path: string; body?: object; upload?: RouteUpload },
+) {
+  const req = agent[method](prepared.path);
+  if (prepared.upload) {
+    for (const [name, value] of Object.entries(prepared.upload.fields)) req.field(name, value);
+    return req.attach("file", prepared.upload.file);
+  }
+  return prepared.body === undefined ? req : req.send(prepared.body);
+}

@@ -1,0 +1,177 @@
+import { randomUUID } from "node:crypto";
+import { existsSync } from "node:fs";
+import { mkdir, rm } from "node:fs/promises";
+import path from "node:path";
+import { and, eq, inArray } from "drizzle-orm";
+import type { Feature, Geometry } from "geojson";
+import type { LayerError, LayerProgress } from "../../shared/schemas/layers";
+import type { Db } from "../db/client";
+import { layers } from "../db/schema-geodata";
+import { ReadError, VECTOR_FORMATS, type VectorFormat } from "../geodata/readers/types";
+const inspectTerrain = async (f: string, u: "m" | "ft") =>
+  (await import("../geodata/terrain")).inspectTerrain(f, u);
+import type { LayerEvents } from "../jobs/layer-events";
+import { parseVectorInThread } from "../jobs/parse-thread";
+import type { ObjectStore } from "../storage";
+import type { LayerRow } from "./dto";
+import { featureBbox, insertFeatures, repairOrRejectPolygons } from "./feature-store";
+
+export interface IngestDeps {
+  db: Db;
+  store: ObjectStore;
+  events: LayerEvents;
+  /** Where a copy of the stored original is put when the upload's own file is not at hand. */
+  workDir: string;
+}
+
+const POLYGONAL = new Set(["Polygon", "MultiPolygon"]);
+const LINEAR = new Set(["LineString", "MultiLineString"]);
+
+/** Channel layers are lines; cover, soil and boundary layers are areas. */
+function checkGeometryTypes(
+  row: LayerRow,
+  features: readonly Feature<Geometry, Record<string, unknown>>[],
+): void {
+  const allowed = row.kind === "channel" ? LINEAR : POLYGONAL;
+  const wanted = row.kind === "channel" ? "lines" : "polygons";
+  const index = features.findIndex((f) => !allowed.has(f.geometry.type));
+  const bad = features[index];
+  if (!bad) return;
+  throw new ReadError(
+    422,
+    "wrong-geometry-type",
+    `${row.originalFilename}: feature ${index + 1} is a ${bad.geometry.type}; a ${row.kind} layer ` +
+      `takes ${wanted} only.`,
+    `feature ${index + 1}`,
+  );
+}
+
+function isVectorFormat(format: string): format is VectorFormat {
+  return (VECTOR_FORMATS as readonly string[]).includes(format);
+}
+
+/** Throttled progress on the layer row, announced to waiting requests and event streams. */
+function progressReporter(deps: IngestDeps, row: LayerRow) {
+  let current = row.progress as LayerProgress;
+  let lastWrite = 0;
+  return async (change: Partial<LayerProgress>, force = false) => {
+    current = { ...current, ...change };
+    const now = Date.now();
+    if (!force && now - lastWrite < 250) return;
+    lastWrite = now;
+    await deps.db
+      .update(layers)
+      .set({ progress: current, status: "processing" })
+      // Never over a final status: a late report must not revive a failed layer.
+      .where(and(eq(layers.id, row.id), inArray(layers.status, ["queued", "processing"])));
+    deps.events.emit({ layerId: row.id, status: "processing" });
+  };
+}
+
+async function ingestVector(deps: IngestDeps, row: LayerRow, filePath: string, format: string) {
+  if (!isVectorFormat(format)) throw new Error(`layer ${row.id} has format ${format}`);
+  const progress = progressReporter(deps, row);
+  await progress({ stage: "reading" }, true);
+  const read = await parseVectorInThread(
+    { filePath, format, originalName: row.originalFilename },
+    (done, total) => void progress({ featuresDone: done, featuresTotal: total }),
+  );
+  checkGeometryTypes(row, read.features);
+  const total = read.features.length;
+  await progress({ stage: "saving", featuresDone: 0, featuresTotal: total }, true);
+  await deps.db.transaction(async (tx) => {
+    await insertFeatures(tx, row.id, read.features, (done) => progress({ featuresDone: done }));
+    const repairs =
+      row.kind === "channel" ? [] : await repairOrRejectPolygons(tx, row.id, row.originalFilename);
+    const crsNote = { where: "file", message: `read in ${read.sourceCrs}, stored as WGS84` };
+    await tx
+      .update(layers)
+      .set({
+        status: "ready",
+        featureCount: total,
+        fields: [...read.fields],
+        notes: [crsNote, ...read.notes, ...repairs],
+        bbox4326: await featureBbox(tx, row.id),
+        progress: {
+          ...(row.progress as LayerProgress),
+          stage: "done",
+          featuresDone: total,
+          featuresTotal: total,
+        },
+        error: null,
+      })
+      .where(eq(layers.id, row.id));
+  });
+}
+
+async function ingestTerrain(deps: IngestDeps, row: LayerRow, filePath: string) {
+  const stored = (row.terrain ?? {}) as { verticalUnit?: "m" | "ft" };
+  const info = await inspectTerrain(filePath, stored.verticalUnit ?? "m");
+  await deps.db
+    .update(layers)
+    .set({
+      status: "ready",
+      terrain: { ...info },
+      bbox4326: [...info.bbox4326],
+      progress: { ...(row.progress as LayerProgress), stage: "done" },
+      error: null,
+    })
+    .where(eq(layers.id, row.id));
+}
+
+function toLayerError(err: unknown): LayerError {
+  if (err instanceof ReadError) {
+    return {
+      status: err.status,
+      code: err.code,
+      message: err.message,
+      ...(err.where && { where: err.where }),
+    };
+  }
+  console.error("Layer ingest failed:", err);
+  return {
+    status: 500,
+    code: "internal_error",
+    message: "The file could not be processed because of a server error. Try again.",
+  };
+}
+
+/**
+ * Reads an uploaded layer's file into its features (vector) or its description (terrain). A
+ * refused file leaves the row marked failed with the error, and no feature and no stored
+ * object behind; the features go in one transaction, so a failure rolls all of them back.
+ */
+export async function ingestLayer(
+  deps: IngestDeps,
+  layerId: string,
+  uploadPath?: string,
+): Promise<void> {
+  const [row] = await deps.db.select().from(layers).where(eq(layers.id, layerId));
+  if (!row || row.status === "ready" || !row.objectKey) return; // deleted meanwhile, or done
+  let filePath = uploadPath && existsSync(uploadPath) ? uploadPath : undefined;
+  let downloaded: string | undefined;
+  try {
+    if (!filePath) {
+      await mkdir(deps.workDir, { recursive: true });
+      downloaded = path.join(deps.workDir, `ingest-${randomUUID()}`);
+      await deps.store.getToFile(row.objectKey, downloaded);
+      filePath = downloaded;
+    }
+    if (row.kind === "terrain") await ingestTerrain(deps, row, filePath);
+    else await ingestVector(deps, row, filePath, row.format);
+    deps.events.emit({ layerId, status: "ready" });
+  } catch (err) {
+    const error = toLayerError(err);
+    await deps.store.delete(row.objectKey).catch((e: unknown) => {
+      console.error(`Could not delete the stored file of failed layer ${layerId}:`, e);
+    });
+    await deps.db
+      .update(layers)
+      .set({ status: "failed", error, objectKey: null })
+      .where(eq(layers.id, layerId));
+    deps.events.emit({ layerId, status: "failed" });
+  } finally {
+    if (uploadPath) await rm(uploadPath, { force: true });
+    if (downloaded) await rm(downloaded, { force: true });
+  }
+}
