@@ -24,6 +24,7 @@ import { membersRouter } from "./routes/members";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
 import { rainfallRouter } from "./routes/rainfall";
+import { subcatchmentsRouter } from "./routes/subcatchments";
 import { teamsRouter } from "./routes/teams";
 import type { ObjectStore } from "./storage";
 
@@ -82,6 +83,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     rainfallRouter,
     layersRouter,
     layerMappingRouter,
+    subcatchmentsRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);
