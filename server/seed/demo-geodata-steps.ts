@@ -1,0 +1,174 @@
+/**
+ * The steps of loading the invented demo scenario, each one call (or a few) of Rillmark's own
+ * API, as the GIS specialist and the engineer would make them in the browser.
+ */
+import path from "node:path";
+import type { Geometry } from "geojson";
+import type { DesignRules } from "../../shared/schemas/design-rules";
+import type { Layer } from "../../shared/schemas/layers";
+import type { RainfallTable } from "../../shared/schemas/rainfall";
+import type { TravelTimeSheet } from "../../shared/schemas/sheet";
+import type { Subcatchment } from "../../shared/schemas/subcatchments";
+import { readVectorFile } from "../geodata/readers";
+import type { ApiClient } from "./api-client";
+import type { DemoLayer, DemoScenario } from "./demo-scenario";
+
+/** How long the seed waits for one layer's background ingest before giving up. */
+const LAYER_DEADLINE_MS = 120_000;
+
+/** Uploads one layer file and waits for its ingest job; throws when the layer failed. */
+export async function uploadLayer(
+  gis: ApiClient,
+  projectId: string,
+  dir: string,
+  layer: DemoLayer,
+): Promise<Layer> {
+  const fields: Record<string, string> = { kind: layer.kind, name: layer.name };
+  if (layer.kind === "terrain") fields.verticalUnit = layer.verticalUnit;
+  const sent = await gis.upload<Layer>(
+    `/projects/${projectId}/layers`,
+    path.join(dir, layer.file),
+    fields,
+  );
+  let current = sent.body;
+  const deadline = Date.now() + LAYER_DEADLINE_MS;
+  while (current.status === "queued" || current.status === "processing") {
+    if (Date.now() > deadline) throw new Error(`${layer.file}: ingest did not finish in time`);
+    current = await gis.get<Layer>(`/layers/${current.id}?waitMs=5000`);
+  }
+  if (current.status !== "ready") {
+    throw new Error(`${layer.file}: ingest failed: ${current.error?.message ?? "no message"}`);
+  }
+  return current;
+}
+
+interface CatalogClass {
+  readonly id: string;
+  readonly key: string;
+}
+
+/** Maps a cover layer's codes to the team's Surface catalog classes (by class key). */
+export async function mapCover(
+  gis: ApiClient,
+  teamId: string,
+  layer: Layer,
+  demo: Extract<DemoLayer, { kind: "cover" }>,
+): Promise<Layer> {
+  const classes = await gis.get<CatalogClass[]>(`/teams/${teamId}/surface-classes`);
+  const entries = Object.entries(demo.mapping).map(([value, key]) => {
+    const found = classes.find((c) => c.key === key);
+    if (!found) throw new Error(`the team's Surface catalog has no class "${key}" for ${value}`);
+    return { value, surfaceClassId: found.id };
+  });
+  return gis.json<Layer>("PUT", `/layers/${layer.id}/mapping`, {
+    field: demo.mappingField,
+    entries,
+  });
+}
+
+export async function mapSoil(
+  gis: ApiClient,
+  layer: Layer,
+  demo: Extract<DemoLayer, { kind: "soil" }>,
+): Promise<Layer> {
+  const entries = Object.entries(demo.mapping).map(([value, hsg]) => ({ value, hsg }));
+  return gis.json<Layer>("PUT", `/layers/${layer.id}/mapping`, {
+    field: demo.mappingField,
+    entries,
+  });
+}
+
+/** The invented IDF table, uploaded as the CSV a user would send. */
+export async function uploadRainfall(
+  engineer: ApiClient,
+  projectId: string,
+  dir: string,
+  rainfall: DemoScenario["rainfall"],
+): Promise<RainfallTable> {
+  const sent = await engineer.upload<RainfallTable>(
+    `/projects/${projectId}/rainfall-tables/upload`,
+    path.join(dir, rainfall.file),
+    {
+      name: rainfall.name,
+      sourceNote: rainfall.sourceNote,
+      kind: rainfall.kind,
+      p2_24h: String(rainfall.p2_24h),
+    },
+  );
+  return sent.body;
+}
+
+export async function putDesignRules(
+  engineer: ApiClient,
+  projectId: string,
+  rules: DemoScenario["designRules"],
+  rainfallTableId: string,
+): Promise<DesignRules> {
+  const route = `/projects/${projectId}/design-rules`;
+  const current = await engineer.get<DesignRules>(route);
+  return engineer.json<DesignRules>("PUT", route, {
+    ...rules,
+    rainfallTableId,
+    version: current.version,
+  });
+}
+
+type Role = "boundary" | "outlet" | "flow-path";
+
+/** The subcatchment file read by the same reader as an uploaded KML; geometry by role. */
+async function subcatchmentGeometry(dir: string, file: string): Promise<Record<Role, Geometry>> {
+  const read = await readVectorFile(path.join(dir, file), "kml", file);
+  const byRole = (role: Role): Geometry => {
+    const found = read.features.find((f) => f.properties.role === role);
+    if (!found) throw new Error(`${file}: no Placemark with role ${role}`);
+    return found.geometry;
+  };
+  return {
+    boundary: byRole("boundary"),
+    outlet: byRole("outlet"),
+    "flow-path": byRole("flow-path"),
+  };
+}
+
+/** Creates the subcatchment with its boundary, outlet and channel, then sends its flow path. */
+export async function createSubcatchment(
+  engineer: ApiClient,
+  projectId: string,
+  dir: string,
+  demo: DemoScenario["subcatchment"],
+): Promise<Subcatchment> {
+  const geometry = await subcatchmentGeometry(dir, demo.file);
+  const created = await engineer.json<Subcatchment>(
+    "POST",
+    `/projects/${projectId}/subcatchments`,
+    {
+      name: demo.name,
+      scenario: demo.scenario,
+      boundary: geometry.boundary,
+      outlet: geometry.outlet,
+      channel: demo.channel,
+      note: demo.note,
+    },
+  );
+  await engineer.json("PUT", `/subcatchments/${created.id}/flow-path`, {
+    geometry: geometry["flow-path"],
+    version: 0,
+  });
+  return engineer.get<Subcatchment>(`/subcatchments/${created.id}`);
+}
+
+/** Runs every method on the subcatchment; the sheet is stored as its current result. */
+export async function computeSubcatchment(
+  engineer: ApiClient,
+  subcatchmentId: string,
+): Promise<TravelTimeSheet> {
+  const sheet = await engineer.json<TravelTimeSheet>(
+    "POST",
+    `/subcatchments/${subcatchmentId}/compute`,
+    {},
+  );
+  if (sheet.problems.length > 0 || sheet.governing === null) {
+    throw new Error(`the demo subcatchment did not compute: ${sheet.problems.join("; ")}`);
+  }
+  return sheet;
+}
