@@ -10,7 +10,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { booleanPointInPolygon, booleanValid, polygon as turfPolygon } from "@turf/turf";
-import { kml } from "@mapbox/togeojson";
+import togeojson from "@mapbox/togeojson";
 import { DOMParser } from "@xmldom/xmldom";
 import { unzipSync } from "fflate";
 import { fromArrayBuffer } from "geotiff";
@@ -30,7 +30,7 @@ async function subcatchment(): Promise<{ path: Position[]; boundary: Polygon; ou
     (await read("subcatchment.kml")).toString("utf8"),
     "text/xml",
   );
-  const features = kml(doc as unknown as Document).features;
+  const features = togeojson.kml(doc as unknown as Document).features;
   const byType = <G extends Geometry>(type: G["type"]): G => {
     const hit = features.find((f) => f.geometry?.type === type);
     if (!hit?.geometry) throw new Error(`subcatchment.kml has no ${type}`);

@@ -74,6 +74,23 @@ export function scenarioDocument() {
       p2_24h: p2Depth24hIn(),
       p2Note: "Invented 2-year 24-hour depth (in), consistent with the invented 2-year curve.",
     },
+    catalogOverrides: [
+      {
+        classKey: "gravel",
+        note:
+          "Invented for the demo: the published defaults leave C for gravel open (no HEC-22 " +
+          "row), so the demo project sets one; a real project takes it from its local criteria.",
+        values: {
+          runoffC: {
+            low: 0.4,
+            high: 0.6,
+            design: 0.5,
+            source: "Invented demo value (no published row)",
+            note: "Take C for gravel from the local drainage criteria.",
+          },
+        },
+      },
+    ],
     designRules: {
       note:
         "Invented demo Design rules; a real project takes them from the reviewing agency's " +

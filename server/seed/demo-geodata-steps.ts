@@ -78,6 +78,26 @@ export async function mapSoil(
   });
 }
 
+/**
+ * The project's own changes to team classes (the demo fills a value the published defaults
+ * leave open); the API checks each value and its source.
+ */
+export async function putCatalogOverrides(
+  engineer: ApiClient,
+  projectId: string,
+  overrides: DemoScenario["catalogOverrides"],
+): Promise<void> {
+  const classes = await engineer.get<CatalogClass[]>(`/projects/${projectId}/surface-classes`);
+  for (const override of overrides) {
+    const found = classes.find((c) => c.key === override.classKey);
+    if (!found) throw new Error(`the Surface catalog has no class "${override.classKey}"`);
+    await engineer.json("PUT", `/projects/${projectId}/surface-classes/${found.id}/override`, {
+      values: override.values,
+      note: override.note,
+    });
+  }
+}
+
 /** The invented IDF table, uploaded as the CSV a user would send. */
 export async function uploadRainfall(
   engineer: ApiClient,

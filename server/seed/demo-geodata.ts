@@ -12,7 +12,13 @@ import { asc, eq } from "drizzle-orm";
 import type pg from "pg";
 import type { Db } from "../db/client";
 import { projects, seedRuns } from "../db/schema";
-import { designRules, layers, rainfallTables, subcatchments } from "../db/schema-geodata";
+import {
+  designRules,
+  layers,
+  projectSurfaceOverrides,
+  rainfallTables,
+  subcatchments,
+} from "../db/schema-geodata";
 import { ApiClient } from "./api-client";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./demo";
 import {
@@ -20,6 +26,7 @@ import {
   createSubcatchment,
   mapCover,
   mapSoil,
+  putCatalogOverrides,
   putDesignRules,
   uploadLayer,
   uploadRainfall,
@@ -68,6 +75,11 @@ async function hasGeodata(db: Db, projectId: string): Promise<boolean> {
       .from(designRules)
       .where(eq(designRules.projectId, projectId))
       .limit(1),
+    db
+      .select({ id: projectSurfaceOverrides.projectId })
+      .from(projectSurfaceOverrides)
+      .where(eq(projectSurfaceOverrides.projectId, projectId))
+      .limit(1),
   ]);
   return checks.some((rows) => rows.length > 0);
 }
@@ -92,6 +104,9 @@ async function removeSeeded(db: Db, projectId: string, made: Made): Promise<void
   await db.transaction(async (tx) => {
     await tx.delete(subcatchments).where(eq(subcatchments.projectId, projectId));
     await tx.delete(designRules).where(eq(designRules.projectId, projectId));
+    await tx
+      .delete(projectSurfaceOverrides)
+      .where(eq(projectSurfaceOverrides.projectId, projectId));
     await tx.delete(rainfallTables).where(eq(rainfallTables.projectId, projectId));
     await tx.delete(layers).where(eq(layers.projectId, projectId));
   });
@@ -114,6 +129,7 @@ async function load(
     if (demo.kind === "cover") await mapCover(gis, project.teamId, layer, demo);
     if (demo.kind === "soil") await mapSoil(gis, layer, demo);
   }
+  await putCatalogOverrides(engineer, project.id, scenario.catalogOverrides);
   const rainfall = await uploadRainfall(engineer, project.id, dir, scenario.rainfall);
   await putDesignRules(engineer, project.id, scenario.designRules, rainfall.id);
   const subcatchment = await createSubcatchment(engineer, project.id, dir, scenario.subcatchment);

@@ -50,6 +50,9 @@ export const demoScenarioSchema = z.object({
     sourceNote: z.string().regex(/invented/i, "must say that the table is invented"),
     p2_24h: z.number().positive(),
   }),
+  catalogOverrides: z.array(
+    z.object({ classKey: z.string(), note: z.string(), values: z.record(z.string(), z.unknown()) }),
+  ),
   designRules: z.object({
     rules: rulesSchema,
     dualHsg: z.enum(DUAL_HSG_CHOICES),
