@@ -16,6 +16,8 @@ export interface ShapefileLayer {
   readonly prjWkt: string;
   /** Code page of the .dbf text, named in the .cpg. Default UTF-8. */
   readonly encoding?: DbfEncoding;
+  /** Date stamped in the .dbf header and the zip entries; now by default (fixed for fixtures). */
+  readonly date?: Date;
 }
 
 /** The five member files by name, for callers that need to leave one out or add one. */
@@ -30,6 +32,7 @@ export function shapefileFiles(layer: ShapefileLayer): Record<string, Uint8Array
     [`${base}.dbf`]: encodeDbf(
       layer.features.map((f) => f.properties ?? {}),
       encoding,
+      layer.date,
     ),
     [`${base}.prj`]: text.encode(layer.prjWkt),
     [`${base}.cpg`]: text.encode(CPG_TEXT[encoding]),
@@ -38,5 +41,5 @@ export function shapefileFiles(layer: ShapefileLayer): Record<string, Uint8Array
 
 /** The zip archive's bytes (deflate). */
 export function shapefileZip(layer: ShapefileLayer): Uint8Array {
-  return zipSync(shapefileFiles(layer), { level: 6 });
+  return zipSync(shapefileFiles(layer), { level: 6, mtime: layer.date ?? new Date() });
 }
