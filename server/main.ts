@@ -20,6 +20,7 @@ import { startWorkers } from "./jobs/workers";
 import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, smtpTarget } from "./mail/mailer";
 import { readyLine, seedDemo } from "./seed/demo";
+import { seedDemoGeodata } from "./seed/demo-geodata";
 import { startStorage } from "./storage";
 
 export interface RunningRillmark {
@@ -111,6 +112,14 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
       "request",
       createApp(config, { db, sessionStore, mailer, store: storage.store, jobs }),
     );
+    // The demo's layers, rules and subcatchment go in through the API a user's browser calls,
+    // so they wait for the server; a failure is reported and retried at the next start.
+    const demo = await seedDemoGeodata({ db, pool, baseUrl: url });
+    if (!demo.ran && demo.reason.startsWith("failed")) {
+      console.warn(
+        `The demo project's geodata was not loaded (retried at next start): ${demo.reason}`,
+      );
+    }
 
     let closing: Promise<void> | undefined;
     return { url, config, close: () => (closing ??= closeAll()) };
