@@ -3,10 +3,12 @@
  * fail the build on time (targets are printed beside the measurement for a human to judge).
  */
 import { run as hydrology } from "./hydrology";
+import { run as readers } from "./readers";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "engineering core", run: hydrology },
+  { name: "file readers", run: readers },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];
