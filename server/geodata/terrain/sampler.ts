@@ -50,10 +50,7 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
   // Pixel-is-area: the tie point is the top-left cell's outer corner, its centre half a cell in.
   const shift = info.rasterType === "area" ? 0.5 : 0;
 
-  async function block(bx: number, by: number): Promise<Float64Array> {
-    const key = by * across + bx;
-    const hit = cache.get(key);
-    if (hit !== undefined) return hit;
+  async function load(bx: number, by: number): Promise<Float64Array> {
     const window = [
       bx * bw,
       by * bh,
@@ -65,16 +62,17 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
       samples: [0],
     })) as unknown as ArrayLike<number>[];
     const values = Float64Array.from(band ?? []);
-    cache.set(key, values);
+    cache.set(by * across + bx, values);
     return values;
   }
 
-  async function cell(col: number, row: number): Promise<number | null> {
+  /** The cell's value from a block already in the cache (the caller loaded it). */
+  function cell(col: number, row: number): number | null {
     const bx = Math.floor(col / bw);
     const by = Math.floor(row / bh);
-    const values = await block(bx, by);
+    const values = cache.get(by * across + bx);
     const width = Math.min((bx + 1) * bw, info.width) - bx * bw;
-    const v = values[(row - by * bh) * width + (col - bx * bw)];
+    const v = values?.[(row - by * bh) * width + (col - bx * bw)];
     if (v === undefined || Number.isNaN(v) || v === nodata || v === nodata32) return null;
     return v;
   }
@@ -91,14 +89,13 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
     const r0 = Math.min(Math.floor(r), Math.max(height - 2, 0));
     const c1 = Math.min(c0 + 1, width - 1);
     const r1 = Math.min(r0 + 1, height - 1);
-    const z = bilinear(
-      await cell(c0, r0),
-      await cell(c1, r0),
-      await cell(c0, r1),
-      await cell(c1, r1),
-      c - c0,
-      r - r0,
-    );
+    // The four cells span at most 2 × 2 blocks; read the ones not cached (awaits only on a miss).
+    for (const by of new Set([Math.floor(r0 / bh), Math.floor(r1 / bh)])) {
+      for (const bx of new Set([Math.floor(c0 / bw), Math.floor(c1 / bw)])) {
+        if (cache.get(by * across + bx) === undefined) await load(bx, by);
+      }
+    }
+    const z = bilinear(cell(c0, r0), cell(c1, r0), cell(c0, r1), cell(c1, r1), c - c0, r - r0);
     return z === null ? null : z * toMetres;
   }
 
