@@ -66,6 +66,7 @@ function sniff(bytes: Uint8Array): FileFormat | "zip" | "xml" | "unknown" {
     .trimStart();
   if (text.startsWith("<")) return "xml";
   if (text.startsWith("{")) return "geojson";
+  if (text.startsWith("[")) return "unknown"; // JSON, but no GeoJSON object is an array
   return text.length > 0 ? "csv" : "unknown";
 }
 

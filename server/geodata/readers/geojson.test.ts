@@ -76,4 +76,20 @@ describe("GeoJSON reader", () => {
     const result = await readVectorFile(fixture("bowtie.geojson"), "geojson", "bowtie.geojson");
     expect(result.features).toHaveLength(1);
   });
+
+  it("reports progress every 1,000 features and at the end", async () => {
+    const point =
+      '{"type":"Feature","properties":{},"geometry":{"type":"Point","coordinates":[1,2]}}';
+    const text = `{"type":"FeatureCollection","features":[${Array(2500).fill(point).join(",")}]}`;
+    const calls: Array<[number, number]> = [];
+    const path = writeTemp(tempDir(), "many.geojson", text);
+    await readVectorFile(path, "geojson", "many.geojson", (done, total) =>
+      calls.push([done, total]),
+    );
+    expect(calls).toEqual([
+      [1000, 2500],
+      [2000, 2500],
+      [2500, 2500],
+    ]);
+  });
 });

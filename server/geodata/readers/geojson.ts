@@ -96,9 +96,7 @@ export async function readGeoJsonFile(
     raw,
     (n) => `${file}, feature ${n}`,
     null,
-    (done) => {
-      if (done % 1000 === 0 || done === total) onProgress?.(done, total);
-    },
+    (done) => onProgress?.(done, total),
   );
   return { format: "geojson", features, fields: fieldsOf(features), notes, sourceCrs: "EPSG:4326" };
 }

@@ -99,9 +99,7 @@ export async function readShapefileZip(
     raw,
     (n) => `${file}, feature ${n}`,
     crs.toWgs84,
-    (done) => {
-      if (done % 1000 === 0 || done === total) onProgress?.(done, total);
-    },
+    (done) => onProgress?.(done, total),
   );
   const extraNotes = parts.has("shx")
     ? []
