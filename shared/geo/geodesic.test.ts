@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
+import geodesic from "geographiclib-geodesic";
 import {
   geodesicAreaM2,
   geodesicDistanceM,
@@ -37,6 +38,34 @@ describe("geodesic lengths against published values", () => {
 
   it("the meridian arc from 0° to 1° latitude is 110,574.389 m (from memory, 1 mm = the recalled digits)", () => {
     expect(geodesicDistanceM([0, 0], [0, 1])).toBeCloseTo(110_574.389, 2);
+  });
+});
+
+describe("short edges measured with the local radii of curvature", () => {
+  it("agree with GeographicLib's inverse solution to 10 nm (property; the library's own accuracy is 15 nm)", () => {
+    const WGS84 = geodesic.Geodesic.WGS84;
+    const offset = fc.double({ min: -1e-3, max: 1e-3, noNaN: true });
+    fc.assert(
+      fc.property(
+        fc.double({ min: -80, max: 80, noNaN: true }),
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        offset,
+        offset,
+        (lat, lon, dLat, dLon) => {
+          const reference = WGS84.Inverse(
+            lat,
+            lon,
+            lat + dLat,
+            lon + dLon,
+            geodesic.Geodesic.DISTANCE,
+          ).s12!;
+          expect(
+            Math.abs(geodesicDistanceM([lon, lat], [lon + dLon, lat + dLat]) - reference),
+          ).toBeLessThan(1e-8);
+        },
+      ),
+      { numRuns: 2000 },
+    );
   });
 });
 

@@ -24,8 +24,12 @@ describe("edgeSegmentParams (edge (0,0) → (4,0))", () => {
   });
   it("counts the edge's own ends only when closed", () => {
     expect(params([0, -1, 0, 1])).toEqual([]);
-    expect(params([0, -1, 0, 1], true)).toEqual([0]);
+    expect(new Set(params([0, -1, 0, 1], true))).toEqual(new Set([0]));
     expect(params([-1, 0, 9, 0], true)).toContain(0);
+  });
+  it("counts, when closed, a segment within the on-line tolerance of the edge's start", () => {
+    expect(params([-1, 5e-13, 1, 5e-13], true)).toContain(0);
+    expect(params([-1, 1e-9, 1, 1e-9], true)).not.toContain(0);
   });
 });
 

@@ -17,8 +17,8 @@ export const ON_LINE_EPS_DEG = 1e-12;
  * Pushes onto `out` every parameter t ∈ (0, 1) of edge (ax, ay) → (bx, by) where it crosses
  * or touches the segment (cx, cy) → (dx, dy); a collinear overlap contributes both ends of the
  * overlap. Coordinates are taken relative to a to keep the cross products well conditioned.
- * With `closed`, t = 0 and t = 1 (the edge's own ends) count too, and an overlap that covers
- * the edge's start gives t = 0.
+ * With `closed`, t = 0 and t = 1 (the edge's own ends) count too, and a segment passing through
+ * (or within the on-line tolerance of) the edge's start gives t = 0; a t may then repeat.
  */
 export function edgeSegmentParams(
   ax: number,
@@ -54,6 +54,7 @@ export function edgeSegmentParams(
   const edgeLen = Math.sqrt(ex * ex + ey * ey);
   const segLen = Math.sqrt(sx * sx + sy * sy);
   if (edgeLen === 0) return;
+  if (closed && nearStart(px, py, sx, sy, segLen)) out.push(0);
   if (Math.abs(denom) <= ON_LINE_EPS_DEG * edgeLen * Math.max(segLen, ON_LINE_EPS_DEG)) {
     // Parallel: only a collinear overlap matters; its ends are where the class may change.
     const offLine = Math.abs(ex * py - ey * px) / edgeLen;
@@ -63,7 +64,6 @@ export function edgeSegmentParams(
     const td = (qx * ex + qy * ey) / e2;
     push(tc, out);
     push(td, out);
-    if (closed && Math.min(tc, td) < 0 && Math.max(tc, td) > 0) out.push(0);
     return;
   }
   const t = (px * sy - py * sx) / denom;
@@ -71,6 +71,18 @@ export function edgeSegmentParams(
   const uTol = ON_LINE_EPS_DEG / Math.max(segLen, ON_LINE_EPS_DEG);
   if (u < -uTol || u > 1 + uTol) return;
   push(t, out);
+}
+
+/**
+ * Whether the edge's start (the origin here) is within 2·ON_LINE_EPS_DEG of the segment
+ * p → p + s: a superset of what onSegment (and so pointInRings) calls "on the boundary", so a
+ * vertex that the point-in-polygon test sees on a boundary always counts as touched.
+ */
+function nearStart(px: number, py: number, sx: number, sy: number, segLen: number): boolean {
+  const w = segLen === 0 ? 0 : Math.min(Math.max(-(px * sx + py * sy) / (segLen * segLen), 0), 1);
+  const nx = px + w * sx;
+  const ny = py + w * sy;
+  return nx * nx + ny * ny <= 4 * ON_LINE_EPS_DEG * ON_LINE_EPS_DEG;
 }
 
 function pushOpen(t: number, out: number[]): void {

@@ -118,13 +118,24 @@ export function winnerAt<V>(
   x: number,
   y: number,
 ): number {
+  return winnerAmong(index, candidates, candidates.length, x, y);
+}
+
+/** winnerAt over the first `count` entries of a reusable buffer. */
+export function winnerAmong<V>(
+  index: PolygonIndex<V>,
+  candidates: ArrayLike<number>,
+  count: number,
+  x: number,
+  y: number,
+): number {
   let best = -1;
   const { boxes, rank } = index;
-  for (let i = 0; i < candidates.length; i += 1) {
+  const e = ON_LINE_EPS_DEG;
+  for (let i = 0; i < count; i += 1) {
     const entry = candidates[i]!;
     if (best >= 0 && rank[entry]! > rank[best]!) continue;
     const b = 4 * entry;
-    const e = ON_LINE_EPS_DEG;
     if (
       x < boxes[b]! - e ||
       y < boxes[b + 1]! - e ||

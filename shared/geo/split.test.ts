@@ -7,7 +7,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { geodesicDistanceM, pathLengthsM } from "./geodesic";
-import { buildPolygonIndex } from "./polygon-index";
+import { buildPolygonIndex, winnerAt } from "./polygon-index";
+import { pointAtStation } from "./stations";
 import { mergePieces, splitFlowPath } from "./split";
 import type { HsgCode, LonLat, PathPiece, ValuedPolygon } from "./types";
 
@@ -207,6 +208,20 @@ describe("splitFlowPath: hand-built cases (lengths to 1e-6 m against GeographicL
     expect(pieces[1]!.lengthM).toBeCloseTo(geodesicDistanceM(enter, leave), 3);
   });
 
+  it("does not carry a corner's class onto the next edge from a vertex a hair off the corner", () => {
+    // Regression: the vertex 1e-14° below the corner counted as on the cell's boundary, and the
+    // long edge after it took the cell's class without a test of its own.
+    const path: LonLat[] = [
+      [X0, Y0],
+      [X0, Y0 - 1e-14],
+      [X0, Y0 - 0.25 * D],
+    ];
+    const pieces = splitFlowPath(path, covers([1, "lawn", [cell(0, 0)]]), noSoil);
+    const last = pieces[pieces.length - 1]!;
+    expect(last.surfaceClassId).toBeNull();
+    expect(last.lengthM).toBeCloseTo(geodesicDistanceM(path[1]!, path[2]!), 6);
+  });
+
   it("refuses a path of one vertex with a clear message", () => {
     expect(() => splitFlowPath([at(0)], covers(), noSoil)).toThrow(/at least 2 vertices/);
   });
@@ -236,8 +251,10 @@ describe("splitFlowPath: properties over random paths on a 6 × 6 grid of classe
   const soil = buildPolygonIndex(soilCells);
   // Vertices snap to a 1/4-cell lattice half the time, so edges often run along or end on
   // polygon edges: the hard cases.
+  // Other vertices sit on a 1e-6-cell lattice (0.1 mm): never a hair's breadth off an edge,
+  // where the 1e-12° on-boundary tolerance would decide (a difference of 1e-7 m at most).
   const coordinate = fc.oneof(
-    fc.double({ min: -0.5, max: 6.5, noNaN: true }),
+    fc.integer({ min: -500_000, max: 6_500_000 }).map((k) => k / 1e6),
     fc.integer({ min: -2, max: 26 }).map((k) => k / 4),
   );
   const paths = fc.array(fc.tuple(coordinate, coordinate), { minLength: 2, maxLength: 30 });
@@ -256,6 +273,32 @@ describe("splitFlowPath: properties over random paths on a 6 × 6 grid of classe
           expect(p.stationFromM).toBe(k === 0 ? 0 : pieces[k - 1]!.stationToM);
         });
         if (pieces.length > 0) expect(pieces[pieces.length - 1]!.stationToM).toBe(totalM);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it("every piece has the class and soil that an exhaustive test of every polygon gives", () => {
+    const allCover = coverCells.map((_, k) => k);
+    const allSoil = soilCells.map((_, k) => k);
+    fc.assert(
+      fc.property(paths, (cells) => {
+        const path = toPath(cells);
+        const lengths = pathLengthsM(path);
+        for (const p of splitFlowPath(path, cover, soil, lengths)) {
+          if (p.lengthM < 0.01) continue; // a sample point could fall off a sliver
+          // Off-centre fractions: a round one can land on a path vertex, where a single point
+          // may touch a third polygon that no stretch of the path enters.
+          for (const f of [0.213, 0.517, 0.821]) {
+            const [x, y] = pointAtStation(path, lengths, p.stationFromM + f * p.lengthM);
+            const c = winnerAt(cover, allCover, x, y);
+            const s = winnerAt(soil, allSoil, x, y);
+            expect([p.surfaceClassId, p.hsg]).toEqual([
+              c < 0 ? null : cover.values[c],
+              s < 0 ? null : soil.values[s],
+            ]);
+          }
+        }
       }),
       { numRuns: 300 },
     );
