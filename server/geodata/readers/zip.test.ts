@@ -73,6 +73,25 @@ describe("zip defences", () => {
     expect([error.status, error.code]).toEqual([422, "bad-zip"]);
   });
 
+  it("refuses an encrypted member", async () => {
+    // Set bit 0 (encrypted) of the general purpose flag in the central directory header.
+    const bytes = zipSync({ "a.shp": new Uint8Array(10) });
+    const view = new DataView(bytes.buffer);
+    for (let at = bytes.length - 22; at >= 0; at -= 1) {
+      if (view.getUint32(at, true) === 0x02014b50) {
+        view.setUint16(at + 8, view.getUint16(at + 8, true) | 1, true);
+        break;
+      }
+    }
+    const error = await readErrorOf(() =>
+      listZip(writeTemp(tempDir(), "enc.zip", bytes), "enc.zip"),
+    );
+    expect([error.code, error.message]).toEqual([
+      "zip-encrypted",
+      'enc.zip: "a.shp" is encrypted; upload it without a password',
+    ]);
+  });
+
   it("keeps members in memory by base name, folders inside the zip ignored", async () => {
     const path = writeTemp(
       tempDir(),
