@@ -14,6 +14,7 @@ import type { Mailer } from "./mail/mailer";
 import { accountRouter } from "./routes/account";
 import { authRouter } from "./routes/auth";
 import { catalogRouter } from "./routes/catalog";
+import { computeRouter } from "./routes/compute";
 import { configRouter } from "./routes/config";
 import type { RouteDeps } from "./routes/deps";
 import { designRulesRouter } from "./routes/design-rules";
@@ -84,6 +85,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     layersRouter,
     layerMappingRouter,
     subcatchmentsRouter,
+    computeRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);

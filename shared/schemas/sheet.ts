@@ -86,6 +86,8 @@ export const travelTimeSheetSchema = z.object({
   project: z.object({ id: z.string(), name: z.string() }),
   subcatchment: z.object({ id: z.string(), name: z.string(), scenario: z.string() }),
   flowPathVersion: z.number().int(),
+  /** Set when read back: the path (or its breaks) changed since this sheet was computed. */
+  stale: z.boolean().optional(),
   computedAt: z.string(),
   units: z.enum(["us", "si"]),
   unitLabels: z.record(z.string(), z.string()),

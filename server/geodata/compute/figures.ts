@@ -1,0 +1,163 @@
+/**
+ * Subcatchment figures for the lag method and the rational method: the area on the WGS84
+ * ellipsoid (the geodata core's geodesic area), area-weighted CN and C from the cover × soil
+ * intersection inside the boundary (PostGIS ST_Intersection, areas on the geography type), and
+ * the average land slope from terrain samples on a grid over the boundary.
+ */
+import { sql } from "drizzle-orm";
+import type { Geometry } from "geojson";
+import {
+  averageLandSlopePercent,
+  gridOverPolygon,
+  multiPolygonAreaM2,
+  type LonLat,
+} from "../../../shared/geo";
+import { M2_PER_ACRE, M2_PER_HA } from "../../../shared/hydrology/units";
+import { resolveHsg, type SurfaceParams } from "../../../shared/sheet/rows";
+import type { HsgCode } from "../../../shared/geo";
+import type { Db } from "../../db/client";
+import type { TerrainSampler } from "../terrain";
+import { polygonParts } from "./load";
+
+export interface Figures {
+  area: number | null;
+  areaM2: number | null;
+  cn: number | null;
+  c: number | null;
+  avgSlopePercent: number | null;
+  notes: string[];
+}
+
+interface WeightRow extends Record<string, unknown> {
+  kind: "cover-soil" | "cover";
+  surface_class_id: string | null;
+  hsg: string | null;
+  area_m2: number | string;
+}
+
+const pct = (part: number, whole: number) => `${((100 * part) / whole).toFixed(1)} %`;
+
+/** Cover × soil pieces inside the boundary, area per (class, HSG); soil missing → hsg null. */
+async function coverSoilAreas(db: Db, projectId: string, subcatchmentId: string) {
+  const result = await db.execute<WeightRow>(sql`
+    with b as (select boundary as g from subcatchments where id = ${subcatchmentId}),
+    c as (
+      select f.surface_class_id, ST_Intersection(f.geom, b.g) as g
+      from layer_features f join layers l on l.id = f.layer_id, b
+      where l.project_id = ${projectId} and l.kind = 'cover' and l.status = 'ready'
+        and f.geom && b.g and ST_Intersects(f.geom, b.g)),
+    s as (
+      select f.hsg, ST_Intersection(f.geom, b.g) as g
+      from layer_features f join layers l on l.id = f.layer_id, b
+      where l.project_id = ${projectId} and l.kind = 'soil' and l.status = 'ready'
+        and f.geom && b.g and ST_Intersects(f.geom, b.g))
+    select 'cover-soil' as kind, c.surface_class_id, s.hsg,
+      sum(ST_Area(ST_Intersection(c.g, s.g)::geography)) as area_m2
+    from c join s on ST_Intersects(c.g, s.g)
+    group by 2, 3
+    union all
+    select 'cover', c.surface_class_id, null, sum(ST_Area(c.g::geography)) from c group by 2`);
+  return result.rows.map((r) => ({ ...r, area_m2: Number(r.area_m2) }));
+}
+
+export async function subcatchmentFigures(
+  db: Db,
+  args: {
+    projectId: string;
+    subcatchmentId: string;
+    units: "us" | "si";
+    boundary: Geometry | null;
+    classes: ReadonlyMap<string, SurfaceParams>;
+    dualHsg: "drained" | "undrained";
+    terrain: TerrainSampler | null;
+  },
+): Promise<Figures> {
+  const notes: string[] = [];
+  const none: Figures = {
+    area: null,
+    areaM2: null,
+    cn: null,
+    c: null,
+    avgSlopePercent: null,
+    notes,
+  };
+  if (!args.boundary) {
+    notes.push("No boundary: draw or upload one for the area, CN, C and land slope.");
+    return none;
+  }
+  const parts = polygonParts(args.boundary);
+  const areaM2 = multiPolygonAreaM2(parts);
+  const area = areaM2 / (args.units === "si" ? M2_PER_HA : M2_PER_ACRE);
+  const rows = await coverSoilAreas(db, args.projectId, args.subcatchmentId);
+  // C: cover alone (the rational method's C does not depend on the soil group).
+  let cSum = 0;
+  let cArea = 0;
+  let coverArea = 0;
+  for (const r of rows) {
+    if (r.kind !== "cover") continue;
+    coverArea += r.area_m2;
+    const cls = r.surface_class_id ? args.classes.get(r.surface_class_id) : undefined;
+    const c = cls?.values.runoffC?.design;
+    if (c !== undefined) {
+      cSum += c * r.area_m2;
+      cArea += r.area_m2;
+    }
+  }
+  let cnSum = 0;
+  let cnArea = 0;
+  for (const r of rows) {
+    if (r.kind !== "cover-soil" || r.hsg === null) continue;
+    const cls = r.surface_class_id ? args.classes.get(r.surface_class_id) : undefined;
+    const hsg = resolveHsg(r.hsg as HsgCode, args.dualHsg);
+    const cn = cls && hsg ? cls.values.cn[hsg] : null;
+    if (cn !== null && cn !== undefined) {
+      cnSum += cn * r.area_m2;
+      cnArea += r.area_m2;
+    }
+  }
+  if (coverArea > areaM2 * 1.001) {
+    notes.push("Cover polygons overlap inside the boundary: the overlaps are counted in each.");
+  }
+  if (cArea < areaM2 * 0.999) {
+    notes.push(
+      `C is weighted over ${pct(cArea, areaM2)} of the area (the rest has no mapped cover with a C).`,
+    );
+  }
+  if (cnArea < areaM2 * 0.999) {
+    notes.push(
+      `CN is weighted over ${pct(cnArea, areaM2)} of the area (the rest has no mapped cover and soil with a CN).`,
+    );
+  }
+  const avgSlopePercent = await landSlope(parts[0], args.terrain, notes);
+  return {
+    area,
+    areaM2,
+    cn: cnArea > 0 ? cnSum / cnArea : null,
+    c: cArea > 0 ? cSum / cArea : null,
+    avgSlopePercent,
+    notes,
+  };
+}
+
+/** Terrain sampled every 2 m (at most 40,000 points), slope by central differences. */
+async function landSlope(
+  rings: readonly (readonly LonLat[])[] | undefined,
+  terrain: TerrainSampler | null,
+  notes: string[],
+): Promise<number | null> {
+  if (!rings || !terrain) {
+    notes.push(
+      "No terrain layer: the average land slope is unknown (the lag method uses the path's).",
+    );
+    return null;
+  }
+  const grid = gridOverPolygon(rings, 2);
+  const inside = grid.points.filter((p): p is LonLat => p !== null);
+  const z = await terrain.elevationsM(inside);
+  let k = 0;
+  const elevationsM = grid.points.map((p) => (p === null ? null : (z[k++] ?? null)));
+  const result = averageLandSlopePercent({ ...grid, elevationsM });
+  if (!result)
+    notes.push("The terrain does not cover the boundary: the average land slope is unknown.");
+  return result ? result.slopePercent : null;
+}
