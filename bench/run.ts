@@ -3,11 +3,13 @@
  * fail the build on time (targets are printed beside the measurement for a human to judge).
  */
 import { run as hydrology } from "./hydrology";
+import { run as split } from "./split";
 import { run as readers } from "./readers";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "engineering core", run: hydrology },
+  { name: "flow path split", run: split },
   { name: "file readers", run: readers },
 ];
 
