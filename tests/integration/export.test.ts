@@ -1,0 +1,80 @@
+import ExcelJS from "exceljs";
+import Papa from "papaparse";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { TravelTimeSheet } from "../../shared/schemas/sheet";
+import { startTestApp, type TestApp } from "../support/app";
+import { buildGeodataCase, type GeodataCase } from "../support/geodata-case";
+
+let t: TestApp;
+let c: GeodataCase;
+let sheet: TravelTimeSheet;
+
+beforeAll(async () => {
+  t = await startTestApp();
+  c = await buildGeodataCase(t, "export");
+  sheet = (await c.engineer.post(`/api/subcatchments/${c.subcatchmentId}/compute`).send({}))
+    .body as TravelTimeSheet;
+});
+afterAll(() => t.close());
+
+describe("exports of the travel-time sheet", () => {
+  it("CSV: header block, units row under the names, one row per segment, totals, same numbers", async () => {
+    const viewer = t.agent();
+    const { signIn } = await import("../support/app");
+    await signIn(viewer, c.team.members.viewer);
+    const res = await viewer.get(`/api/subcatchments/${c.subcatchmentId}/sheet.csv`);
+    expect(res.status).toBe(200);
+    expect(res.headers["content-type"]).toMatch(/text\/csv/);
+    expect(res.headers["content-disposition"]).toMatch(/Invented-area-A-existing-travel-time\.csv/);
+    const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, "")).data;
+    expect(rows.find((r) => r[0] === "Caution")?.[1]).toBe(sheet.caution);
+    const head = rows.findIndex((r) => r[0] === "Segment");
+    expect(rows[head + 1]?.[1]).toBe("m");
+    const lengthCol = rows[head]?.indexOf("Length") ?? -1;
+    const slopeCol = rows[head]?.indexOf("Slope") ?? -1;
+    const velCol = rows[head]?.indexOf("Time, Velocity method") ?? -1;
+    sheet.segments.forEach((s, i) => {
+      const row = rows[head + 2 + i] ?? [];
+      expect(Number(row[0])).toBe(i + 1);
+      expect(Number(row[lengthCol])).toBe(s.length);
+      expect(Number(row[slopeCol])).toBe(s.slope);
+      expect(Number(row[velCol])).toBe(s.timesMin.velocity);
+    });
+    const totals = rows[head + 2 + sheet.segments.length] ?? [];
+    expect(totals[0]).toBe("Total");
+    expect(Number(totals[lengthCol])).toBe(sheet.totalLength);
+    const governing = rows.find((r) => r[0] === "Governing Tc");
+    expect(Number(governing?.[2])).toBe(sheet.governing?.tcMin);
+  });
+
+  it("XLSX: numbers as numbers with number formats, the same values as the JSON sheet", async () => {
+    const res = await c.engineer
+      .get(`/api/subcatchments/${c.subcatchmentId}/sheet.xlsx`)
+      .responseType("blob");
+    expect(res.status).toBe(200);
+    const book = new ExcelJS.Workbook();
+    await book.xlsx.load(res.body as ExcelJS.Buffer);
+    const ws = book.getWorksheet("Travel time");
+    if (!ws) throw new Error("no worksheet");
+    let head = 0;
+    ws.eachRow((row, n) => {
+      if (row.getCell(1).value === "Segment") head = n;
+    });
+    expect(head).toBeGreaterThan(0);
+    const titles = (ws.getRow(head).values as unknown[]).slice(1);
+    const col = (title: string) => titles.indexOf(title) + 1;
+    sheet.segments.forEach((s, i) => {
+      const row = ws.getRow(head + 2 + i);
+      expect(row.getCell(col("Length")).value).toBe(s.length);
+      expect(row.getCell(col("Slope")).value).toBe(s.slope);
+      expect(row.getCell(col("Time, NRCS segmental")).value).toBe(s.timesMin["nrcs-segmental"]);
+      expect(row.getCell(col("Flow regime")).value).toBe(s.regime);
+    });
+    expect(ws.getColumn(col("Slope")).numFmt).toBe("0.00000");
+    expect(ws.getRow(head + 1).getCell(col("Velocity")).value).toBe("m/s");
+    const total = ws.getRow(head + 2 + sheet.segments.length);
+    expect(total.getCell(1).value).toBe("Total");
+    const segmental = sheet.methods.find((m) => m.id === "nrcs-segmental");
+    expect(total.getCell(col("Time, NRCS segmental")).value).toBe(segmental?.computedMin);
+  });
+});
