@@ -4,6 +4,7 @@
  */
 import { run as hydrology } from "./hydrology";
 import { run as split } from "./split";
+import { run as ingest } from "./ingest";
 import { run as readers } from "./readers";
 import { formatTable, type BenchRow } from "./table";
 
@@ -11,6 +12,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "engineering core", run: hydrology },
   { name: "flow path split", run: split },
   { name: "file readers", run: readers },
+  { name: "layer upload pipeline", run: ingest },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

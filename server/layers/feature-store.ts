@@ -1,34 +1,27 @@
 import { sql } from "drizzle-orm";
-import type { Feature, Geometry } from "geojson";
 import type { Tx } from "../db/client";
 import { ReadError, type ReadNote } from "../geodata/readers/types";
 
-/** Rows per INSERT: one JSON parameter each, so the statement count stays low. */
-const BATCH = 2000;
-
 /**
- * Inserts the features in batches inside the caller's transaction. Each batch is one statement
- * over a JSON array (json_array_elements), which PostgreSQL turns into rows with PostGIS
- * building the geometry; elevations (KML altitude, GPX) are dropped: terrain gives elevations.
+ * Inserts the features, batch by batch, inside the caller's transaction. Each batch is one
+ * statement over a JSON array (json_array_elements) made by the reader thread; PostGIS builds
+ * the geometry. Elevations (KML altitude, GPX) are dropped: the terrain layer gives elevations.
  */
 export async function insertFeatures(
   tx: Tx,
   layerId: string,
-  features: readonly Feature<Geometry, Record<string, unknown>>[],
-  onBatch: (done: number) => Promise<void>,
+  batches: readonly Uint8Array[],
+  onBatch: (batchesDone: number) => Promise<void>,
 ): Promise<void> {
-  for (let start = 0; start < features.length; start += BATCH) {
-    const rows = features.slice(start, start + BATCH).map((f, k) => ({
-      i: start + k,
-      g: f.geometry,
-      a: f.properties ?? {},
-    }));
+  const decoder = new TextDecoder();
+  for (const [k, bytes] of batches.entries()) {
+    const batch = decoder.decode(bytes);
     await tx.execute(sql`
       insert into layer_features (layer_id, feature_index, geom, attributes)
       select ${layerId}::uuid, (f ->> 'i')::int,
              ST_Force2D(ST_SetSRID(ST_GeomFromGeoJSON(f ->> 'g'), 4326)), (f -> 'a')::jsonb
-      from json_array_elements(${JSON.stringify(rows)}::json) as f`);
-    await onBatch(Math.min(start + BATCH, features.length));
+      from json_array_elements(${batch}::json) as f`);
+    await onBatch(k + 1);
   }
 }
 

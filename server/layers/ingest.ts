@@ -3,17 +3,16 @@ import { existsSync } from "node:fs";
 import { mkdir, rm } from "node:fs/promises";
 import path from "node:path";
 import { and, eq, inArray } from "drizzle-orm";
-import type { Feature, Geometry } from "geojson";
 import type { LayerError, LayerProgress } from "../../shared/schemas/layers";
 import type { Db } from "../db/client";
 import { layers } from "../db/schema-geodata";
 import { ReadError, VECTOR_FORMATS, type VectorFormat } from "../geodata/readers/types";
-const inspectTerrain = async (f: string, u: "m" | "ft") =>
-  (await import("../geodata/terrain")).inspectTerrain(f, u);
+import { inspectTerrain } from "../geodata/terrain";
 import type { LayerEvents } from "../jobs/layer-events";
 import { parseVectorInThread } from "../jobs/parse-thread";
 import type { ObjectStore } from "../storage";
 import type { LayerRow } from "./dto";
+import { INSERT_BATCH } from "./geometry-kinds";
 import { featureBbox, insertFeatures, repairOrRejectPolygons } from "./feature-store";
 
 export interface IngestDeps {
@@ -22,28 +21,6 @@ export interface IngestDeps {
   events: LayerEvents;
   /** Where a copy of the stored original is put when the upload's own file is not at hand. */
   workDir: string;
-}
-
-const POLYGONAL = new Set(["Polygon", "MultiPolygon"]);
-const LINEAR = new Set(["LineString", "MultiLineString"]);
-
-/** Channel layers are lines; cover, soil and boundary layers are areas. */
-function checkGeometryTypes(
-  row: LayerRow,
-  features: readonly Feature<Geometry, Record<string, unknown>>[],
-): void {
-  const allowed = row.kind === "channel" ? LINEAR : POLYGONAL;
-  const wanted = row.kind === "channel" ? "lines" : "polygons";
-  const index = features.findIndex((f) => !allowed.has(f.geometry.type));
-  const bad = features[index];
-  if (!bad) return;
-  throw new ReadError(
-    422,
-    "wrong-geometry-type",
-    `${row.originalFilename}: feature ${index + 1} is a ${bad.geometry.type}; a ${row.kind} layer ` +
-      `takes ${wanted} only.`,
-    `feature ${index + 1}`,
-  );
 }
 
 function isVectorFormat(format: string): format is VectorFormat {
@@ -73,14 +50,15 @@ async function ingestVector(deps: IngestDeps, row: LayerRow, filePath: string, f
   const progress = progressReporter(deps, row);
   await progress({ stage: "reading" }, true);
   const read = await parseVectorInThread(
-    { filePath, format, originalName: row.originalFilename },
+    { filePath, format, originalName: row.originalFilename, kind: row.kind },
     (done, total) => void progress({ featuresDone: done, featuresTotal: total }),
   );
-  checkGeometryTypes(row, read.features);
-  const total = read.features.length;
+  const total = read.count;
   await progress({ stage: "saving", featuresDone: 0, featuresTotal: total }, true);
   await deps.db.transaction(async (tx) => {
-    await insertFeatures(tx, row.id, read.features, (done) => progress({ featuresDone: done }));
+    await insertFeatures(tx, row.id, read.batches, (batchesDone) =>
+      progress({ featuresDone: Math.min(total, batchesDone * INSERT_BATCH) }),
+    );
     const repairs =
       row.kind === "channel" ? [] : await repairOrRejectPolygons(tx, row.id, row.originalFilename);
     const crsNote = { where: "file", message: `read in ${read.sourceCrs}, stored as WGS84` };
@@ -106,7 +84,7 @@ async function ingestVector(deps: IngestDeps, row: LayerRow, filePath: string, f
 
 async function ingestTerrain(deps: IngestDeps, row: LayerRow, filePath: string) {
   const stored = (row.terrain ?? {}) as { verticalUnit?: "m" | "ft" };
-  const info = await inspectTerrain(filePath, stored.verticalUnit ?? "m");
+  const info = await inspectTerrain(filePath, stored.verticalUnit ?? "m", row.originalFilename);
   await deps.db
     .update(layers)
     .set({

@@ -1,8 +1,7 @@
 import { detectFormat } from "../geodata/readers";
 import { ReadError, type FileFormat } from "../geodata/readers/types";
 import { listZip } from "../geodata/readers/zip";
-const inspectTerrain = async (f: string, u: "m" | "ft") =>
-  (await import("../geodata/terrain")).inspectTerrain(f, u);
+import { inspectTerrain } from "../geodata/terrain";
 import type { LayerKind } from "../../shared/schemas/layers";
 
 const VECTOR_NAMES = "a zipped shapefile, KML, KMZ, GPX or GeoJSON file";
@@ -87,7 +86,7 @@ export async function preflight(
         originalName,
       );
     }
-    await inspectTerrain(filePath, verticalUnit);
+    await inspectTerrain(filePath, verticalUnit, originalName);
   }
   return format;
 }

@@ -189,12 +189,15 @@ describe("progress and waiting", () => {
         kind: "soil",
         file: kit.write("soils-202.geojson", SOIL_GEOJSON),
       });
-      expect(res.status).toBe(202);
+      expect(res.status, JSON.stringify(res.body)).toBe(202);
       expect(res.headers.location).toBe(`/api/layers/${res.body.id}`);
       expect(res.body.progress).toMatchObject({ bytesReceived: res.body.sizeBytes });
-      const done = await agent.get(`/api/layers/${res.body.id}?waitMs=10000`);
+      const done = await agent.get(`/api/layers/${res.body.id}?waitMs=20000`);
       expect(done.status).toBe(200);
-      expect(done.body).toMatchObject({ status: "ready", featureCount: 4 });
+      expect(done.body, JSON.stringify(done.body)).toMatchObject({
+        status: "ready",
+        featureCount: 4,
+      });
       expect(done.body.progress).toMatchObject({ stage: "done", featuresDone: 4 });
     } finally {
       await slow.close();
