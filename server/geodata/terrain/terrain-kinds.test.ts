@@ -89,4 +89,25 @@ describe("terrain files of other kinds", () => {
     expect([error.status, error.code]).toEqual([422, "terrain-unknown-crs"]);
     expect(error.message).toContain("EPSG:2227");
   });
+
+  it("stays exact when the points need more blocks than the cache holds", async () => {
+    // 320 × 320 cells in 16-cell tiles: 400 blocks, points scattered over all of them.
+    const bytes = geoTiffBytes({
+      width: 320,
+      height: 320,
+      tileSize: 16,
+      georeference: { epsg: 4326, originX: LON0, originY: LAT0, pixelSizeX: D, pixelSizeY: D },
+      values: plane,
+    });
+    const path = writeTemp(tempDir(), "many.tif", bytes);
+    const cellsAt = Array.from({ length: 2000 }, (_, k) => [
+      ((k * 7919) % 3180) / 10,
+      ((k * 104729) % 3180) / 10,
+    ]);
+    const points = cellsAt.map(
+      ([c, r]) => [LON0 + (c! + 0.5) * D, LAT0 - (r! + 0.5) * D] as [number, number],
+    );
+    const { z } = await sample(path, points);
+    cellsAt.forEach(([c, r], k) => expect(Math.abs(z[k]! - plane(c!, r!))).toBeLessThan(1e-6));
+  });
 });
