@@ -45,6 +45,7 @@ const LATIN = new Set([
 export function codePageFromCpg(cpg: string | undefined): CodePage | null {
   const name = (cpg ?? "UTF-8").trim().toLowerCase().replace(/\s+/g, " ");
   if (LATIN.has(name)) return { kind: "windows-1252" };
+  if (name === "65001" || name === "cp65001") return { kind: "decoder", label: "utf-8" }; // Windows' UTF-8
   const numeric = /^(?:ansi |cp)?(\d{3,4})$/.exec(name);
   const label = numeric ? `windows-${numeric[1]}` : name.replace(/^iso (\d)/, "iso-$1");
   try {
