@@ -25,6 +25,7 @@ import { membersRouter } from "./routes/members";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
 import { rainfallRouter } from "./routes/rainfall";
+import { rainfallUploadRouter } from "./routes/rainfall-upload";
 import { subcatchmentsRouter } from "./routes/subcatchments";
 import { teamsRouter } from "./routes/teams";
 import type { ObjectStore } from "./storage";
@@ -86,6 +87,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     layerMappingRouter,
     subcatchmentsRouter,
     computeRouter,
+    rainfallUploadRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);

@@ -1,3 +1,4 @@
+import path from "node:path";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { rainfallTables } from "../../server/db/schema-geodata";
@@ -94,5 +95,50 @@ describe("Rainfall tables (JSON)", () => {
     expect(patched.body).toMatchObject({ name: "Second", sourceNote: "checked" });
     expect((await engineer.delete(`/api/rainfall-tables/${made.body.id}`)).status).toBe(204);
     expect((await engineer.get(`/api/rainfall-tables/${made.body.id}`)).status).toBe(404);
+  });
+});
+
+describe("Rainfall tables (CSV upload)", () => {
+  const usProject = async () =>
+    (
+      await engineer
+        .post(`/api/teams/${team.id}/projects`)
+        .send({ name: "CSV rainfall", units: "us", designReturnPeriodYears: 10 })
+    ).body.id as string;
+  const fixture = (name: string) => path.join(import.meta.dirname, "../fixtures/geo", name);
+
+  it("reads an invented IDF table from CSV into the project's units", async () => {
+    const projectId = await usProject();
+    const res = await engineer
+      .post(`/api/projects/${projectId}/rainfall-tables/upload`)
+      .field("name", "From CSV")
+      .field("sourceNote", "Invented for tests")
+      .field("kind", "intensity")
+      .field("p2_24h", "3.1")
+      .attach("file", fixture("rainfall.csv"));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body).toMatchObject({ units: "us", p2_24h: 3.1, originalFilename: "rainfall.csv" });
+    // The cells of tests/fixtures/geo/scenario.ts RAINFALL_CSV (invented).
+    expect(res.body.idf.durationsMin).toEqual([5, 10, 15, 30, 60]);
+    expect(res.body.idf.returnPeriodsYears).toEqual([2, 10, 25, 100]);
+    expect(res.body.idf.intensity[0]).toEqual([4.9, 6.6, 7.6, 9.2]);
+    expect(res.body.fit).toHaveLength(4);
+  });
+
+  it("refuses a CSV with a missing cell naming row and column, and stores nothing", async () => {
+    const projectId = await usProject();
+    const res = await engineer
+      .post(`/api/projects/${projectId}/rainfall-tables/upload`)
+      .field("name", "Broken")
+      .field("kind", "intensity")
+      .attach("file", fixture("rainfall-missing-cell.csv"));
+    expect(res.status).toBe(422);
+    // Row 5 of the file (the comment and the header are rows 1 and 2), the 10-year column.
+    expect(res.body.error.message).toContain('rainfall-missing-cell.csv, row 5, column "10-yr"');
+    const rows = await t.db
+      .select()
+      .from(rainfallTables)
+      .where(eq(rainfallTables.projectId, projectId));
+    expect(rows).toEqual([]);
   });
 });
