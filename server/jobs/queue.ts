@@ -1,4 +1,6 @@
+import { sql } from "drizzle-orm";
 import PgBoss from "pg-boss";
+import type { Tx } from "../db/client";
 import { LayerEvents } from "./layer-events";
 
 export const LAYER_INGEST_QUEUE = "layer-ingest";
@@ -73,4 +75,12 @@ export async function startJobQueue(options: JobQueueOptions): Promise<JobQueue>
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });
     },
   };
+}
+
+/**
+ * Deletes a job inside one of our transactions (pg-boss keeps its jobs in the same database,
+ * schema "pgboss"), so the job disappears exactly when the work it did is committed.
+ */
+export async function deleteJobIn(tx: Tx, queue: string, jobId: string): Promise<void> {
+  await tx.execute(sql`delete from pgboss.job where name = ${queue} and id = ${jobId}::uuid`);
 }

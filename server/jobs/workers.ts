@@ -3,7 +3,7 @@ import type { Config } from "../config";
 import type { Db } from "../db/client";
 import { ingestLayer } from "../layers/ingest";
 import type { ObjectStore } from "../storage";
-import type { IngestJobData, JobQueue } from "./queue";
+import { deleteJobIn, type IngestJobData, type JobQueue } from "./queue";
 
 export interface WorkerDeps {
   db: Db;
@@ -14,8 +14,8 @@ export interface WorkerDeps {
 
 /**
  * Starts this process's job workers (the API process is also the worker process). A job
- * leaves nothing behind: its outcome lives on the layer row, and the job row is deleted once
- * the layer is ready or failed.
+ * leaves nothing behind: its outcome lives on the layer row, and the job row is deleted in the
+ * same transaction that makes the layer ready or failed.
  */
 export async function startWorkers(deps: WorkerDeps): Promise<void> {
   const ingestDeps = {
@@ -29,11 +29,9 @@ export async function startWorkers(deps: WorkerDeps): Promise<void> {
     { pollingIntervalSeconds: 0.5, batchSize: 1 },
     async ([job]) => {
       if (!job) return;
-      try {
-        await ingestLayer(ingestDeps, job.data.layerId, job.data.uploadPath);
-      } finally {
-        await deps.jobs.deleteJob(job.id);
-      }
+      await ingestLayer(ingestDeps, job.data.layerId, job.data.uploadPath, (tx) =>
+        deleteJobIn(tx, deps.jobs.ingestQueue, job.id),
+      );
     },
   );
   deps.jobs.addIngestWorker(workerId);

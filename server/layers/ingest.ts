@@ -4,7 +4,7 @@ import { mkdir, rm } from "node:fs/promises";
 import path from "node:path";
 import { and, eq, inArray } from "drizzle-orm";
 import type { LayerError, LayerProgress } from "../../shared/schemas/layers";
-import type { Db } from "../db/client";
+import type { Db, Tx } from "../db/client";
 import { layers } from "../db/schema-geodata";
 import { ReadError, VECTOR_FORMATS, type VectorFormat } from "../geodata/readers/types";
 import { inspectTerrain } from "../geodata/terrain";
@@ -45,7 +45,16 @@ function progressReporter(deps: IngestDeps, row: LayerRow) {
   };
 }
 
-async function ingestVector(deps: IngestDeps, row: LayerRow, filePath: string, format: string) {
+/** Runs in the transaction that makes the layer ready or failed (the job's own clean-up). */
+export type OnFinal = (tx: Tx) => Promise<void>;
+
+async function ingestVector(
+  deps: IngestDeps,
+  row: LayerRow,
+  filePath: string,
+  format: string,
+  onFinal: OnFinal,
+) {
   if (!isVectorFormat(format)) throw new Error(`layer ${row.id} has format ${format}`);
   const progress = progressReporter(deps, row);
   await progress({ stage: "reading" }, true);
@@ -79,22 +88,26 @@ async function ingestVector(deps: IngestDeps, row: LayerRow, filePath: string, f
         error: null,
       })
       .where(eq(layers.id, row.id));
+    await onFinal(tx);
   });
 }
 
-async function ingestTerrain(deps: IngestDeps, row: LayerRow, filePath: string) {
+async function ingestTerrain(deps: IngestDeps, row: LayerRow, filePath: string, onFinal: OnFinal) {
   const stored = (row.terrain ?? {}) as { verticalUnit?: "m" | "ft" };
   const info = await inspectTerrain(filePath, stored.verticalUnit ?? "m", row.originalFilename);
-  await deps.db
-    .update(layers)
-    .set({
-      status: "ready",
-      terrain: { ...info },
-      bbox4326: [...info.bbox4326],
-      progress: { ...(row.progress as LayerProgress), stage: "done" },
-      error: null,
-    })
-    .where(eq(layers.id, row.id));
+  await deps.db.transaction(async (tx) => {
+    await tx
+      .update(layers)
+      .set({
+        status: "ready",
+        terrain: { ...info },
+        bbox4326: [...info.bbox4326],
+        progress: { ...(row.progress as LayerProgress), stage: "done" },
+        error: null,
+      })
+      .where(eq(layers.id, row.id));
+    await onFinal(tx);
+  });
 }
 
 function toLayerError(err: unknown): LayerError {
@@ -118,14 +131,22 @@ function toLayerError(err: unknown): LayerError {
  * Reads an uploaded layer's file into its features (vector) or its description (terrain). A
  * refused file leaves the row marked failed with the error, and no feature and no stored
  * object behind; the features go in one transaction, so a failure rolls all of them back.
+ * `onFinal` runs in the transaction that sets the final status, so "ready or failed" and "the
+ * job is gone" become true together (a crash before it leaves the job to be retried).
  */
 export async function ingestLayer(
   deps: IngestDeps,
   layerId: string,
-  uploadPath?: string,
+  uploadPath: string | undefined,
+  onFinal: OnFinal,
 ): Promise<void> {
   const [row] = await deps.db.select().from(layers).where(eq(layers.id, layerId));
-  if (!row || row.status === "ready" || !row.objectKey) return; // deleted meanwhile, or done
+  if (!row || row.status === "ready" || !row.objectKey) {
+    // Deleted meanwhile, or already done: nothing to read.
+    await deps.db.transaction(onFinal);
+    if (uploadPath) await rm(uploadPath, { force: true });
+    return;
+  }
   let filePath = uploadPath && existsSync(uploadPath) ? uploadPath : undefined;
   let downloaded: string | undefined;
   try {
@@ -135,18 +156,21 @@ export async function ingestLayer(
       await deps.store.getToFile(row.objectKey, downloaded);
       filePath = downloaded;
     }
-    if (row.kind === "terrain") await ingestTerrain(deps, row, filePath);
-    else await ingestVector(deps, row, filePath, row.format);
+    if (row.kind === "terrain") await ingestTerrain(deps, row, filePath, onFinal);
+    else await ingestVector(deps, row, filePath, row.format, onFinal);
     deps.events.emit({ layerId, status: "ready" });
   } catch (err) {
     const error = toLayerError(err);
     await deps.store.delete(row.objectKey).catch((e: unknown) => {
       console.error(`Could not delete the stored file of failed layer ${layerId}:`, e);
     });
-    await deps.db
-      .update(layers)
-      .set({ status: "failed", error, objectKey: null })
-      .where(eq(layers.id, layerId));
+    await deps.db.transaction(async (tx) => {
+      await tx
+        .update(layers)
+        .set({ status: "failed", error, objectKey: null })
+        .where(eq(layers.id, layerId));
+      await onFinal(tx);
+    });
     deps.events.emit({ layerId, status: "failed" });
   } finally {
     if (uploadPath) await rm(uploadPath, { force: true });

@@ -8,6 +8,7 @@ import {
   FileKit,
   GPX_TEXT,
   KML_TEXT,
+  BOWTIE,
   SELF_TOUCHING,
   SOIL_GEOJSON,
   geojsonText,
@@ -15,7 +16,7 @@ import {
   UTM_COVER,
   UTM10N,
 } from "../support/layer-files";
-import { leftovers, uploadLayer } from "../support/layers";
+import { leftovers, NOTHING, uploadLayer } from "../support/layers";
 import { freshProject } from "../support/route-table";
 import { zipSync, strToU8 } from "fflate";
 
@@ -199,6 +200,37 @@ describe("progress and waiting", () => {
         featureCount: 4,
       });
       expect(done.body.progress).toMatchObject({ stage: "done", featuresDone: 4 });
+    } finally {
+      await slow.close();
+    }
+  });
+
+  it("keeps a layer that fails after the answer as failed, with the error and nothing else", async () => {
+    const slow = await startTestApp({ uploads: { ...t.config.uploads, waitMs: 0 } });
+    try {
+      const team = await createTeam(slow.db, "layers-late");
+      const agent = slow.agent();
+      await signIn(agent, team.members.gis);
+      const projectId = await freshProject(slow.db, team.id);
+      const text = geojsonText([{ geometry: BOWTIE, properties: { C: "x" } }]);
+      const res = await uploadLayer(agent, projectId, {
+        kind: "cover",
+        file: kit.write("late-bowtie.geojson", text),
+      });
+      expect(res.status, JSON.stringify(res.body)).toBe(202);
+      const done = await agent.get(`/api/layers/${res.body.id}?waitMs=20000`);
+      expect(done.body, JSON.stringify(done.body)).toMatchObject({
+        status: "failed",
+        error: { status: 422, code: "invalid-polygon", where: "feature 1" },
+      });
+      expect(await leftovers(slow, projectId)).toEqual({
+        layers: 1,
+        features: 0,
+        objects: 0,
+        jobs: 0,
+      });
+      expect((await agent.delete(`/api/layers/${res.body.id}`)).status).toBe(204);
+      expect(await leftovers(slow, projectId)).toEqual(NOTHING);
     } finally {
       await slow.close();
     }
