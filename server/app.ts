@@ -26,6 +26,7 @@ import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
 import { rainfallRouter } from "./routes/rainfall";
 import { rainfallUploadRouter } from "./routes/rainfall-upload";
+import { subcatchmentFilesRouter } from "./routes/subcatchment-files";
 import { subcatchmentsRouter } from "./routes/subcatchments";
 import { teamsRouter } from "./routes/teams";
 import type { ObjectStore } from "./storage";
@@ -88,6 +89,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     subcatchmentsRouter,
     computeRouter,
     rainfallUploadRouter,
+    subcatchmentFilesRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);

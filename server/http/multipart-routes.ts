@@ -8,6 +8,7 @@ import { requireJsonBody } from "./security";
 export const MULTIPART_ROUTES: readonly (readonly [string, RegExp])[] = [
   ["POST", /^\/projects\/[^/]+\/layers\/?$/],
   ["POST", /^\/projects\/[^/]+\/rainfall-tables\/upload\/?$/],
+  ["POST", /^\/subcatchments\/[^/]+\/(flow-path|boundary)\/file\/?$/],
 ];
 
 /** requireJsonBody, except a multipart body on exactly the routes above. */

@@ -1,3 +1,4 @@
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   createTeam,
@@ -217,5 +218,46 @@ describe("subcatchments", () => {
     expect(dup.status).toBe(422);
     const after = await engineer.get(`/api/subcatchments/${made.id}`);
     expect(after.body.elevations).toHaveLength(2);
+  });
+});
+
+describe("subcatchment geometry from files", () => {
+  const fixture = (name: string) => path.join(import.meta.dirname, "../fixtures/geo", name);
+
+  it("takes the flow path from a KML file under the version sent", async () => {
+    const made = await make();
+    const res = await engineer
+      .post(`/api/subcatchments/${made.id}/flow-path/file`)
+      .field("version", "0")
+      .attach("file", fixture("path.kml"));
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    // tests/fixtures/geo/scenario.ts PATH (invented), written to path.kml by the fixture script.
+    expect(res.body.flowPath.geometry.coordinates[0][0]).toBeCloseTo(-122.1995, 9);
+    expect(res.body.flowPath.version).toBe(1);
+    const stale = await engineer
+      .post(`/api/subcatchments/${made.id}/flow-path/file`)
+      .field("version", "0")
+      .attach("file", fixture("path.kml"));
+    expect(stale.status).toBe(409);
+  });
+
+  it("refuses a boundary file with two polygons, saying how many it holds", async () => {
+    const made = await make();
+    const res = await engineer
+      .post(`/api/subcatchments/${made.id}/boundary/file`)
+      .attach("file", fixture("soils.geojson"));
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toBe(
+      "soils.geojson: expected exactly one polygon (the boundary), found 2.",
+    );
+  });
+
+  it("refuses a path file that holds no line", async () => {
+    const made = await make();
+    const res = await engineer
+      .post(`/api/subcatchments/${made.id}/flow-path/file`)
+      .attach("file", fixture("soils.geojson"));
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/found 0/);
   });
 });
