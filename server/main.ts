@@ -17,6 +17,7 @@ import { connectDatabase } from "./db/client";
 import { runMigrations } from "./db/migrate";
 import { startJobQueue } from "./jobs/queue";
 import { startWorkers } from "./jobs/workers";
+import { removeStaleUploads } from "./layers/upload-storage";
 import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, smtpTarget } from "./mail/mailer";
 import { readyLine, seedDemo } from "./seed/demo";
@@ -80,6 +81,7 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
       supervise: true,
     });
     cleanups.push(() => jobs.close());
+    await removeStaleUploads(base.uploads.dir);
     await startWorkers({ db, store: storage.store, jobs, config: base });
     await seedDemo(db);
     let fakeSmtp: FakeSmtp | undefined;

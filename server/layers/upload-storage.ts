@@ -1,5 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { createWriteStream, mkdirSync, rmSync } from "node:fs";
+import { readdir, rm, stat } from "node:fs/promises";
 import path from "node:path";
 import { Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
@@ -101,3 +102,22 @@ export const uploadErrors: ErrorRequestHandler = (err: unknown, _req, _res, next
 };
 
 export type { LimitKind };
+
+/**
+ * Removes upload temp files left by a process that stopped mid-upload (ours are named
+ * upload-… and work/ingest-…); a running job's file is younger than `maxAgeMs`.
+ */
+export async function removeStaleUploads(dir: string, maxAgeMs = 24 * 3_600_000): Promise<void> {
+  const cutoff = Date.now() - maxAgeMs;
+  for (const [folder, prefix] of [
+    [dir, "upload-"],
+    [path.join(dir, "work"), "ingest-"],
+  ] as const) {
+    const names = await readdir(folder).catch(() => [] as string[]);
+    for (const name of names.filter((n) => n.startsWith(prefix))) {
+      const file = path.join(folder, name);
+      const info = await stat(file).catch(() => undefined);
+      if (info && info.mtimeMs < cutoff) await rm(file, { force: true });
+    }
+  }
+}
