@@ -6,6 +6,7 @@ import {
   geodesicDistanceM,
   multiPolygonAreaM2,
   pathLengthsM,
+  rankingAreaM2,
   stationOnEdgeM,
 } from "./geodesic";
 import type { LonLat } from "./types";
@@ -149,5 +150,51 @@ describe("geodesicAreaM2", () => {
     const holeM2 = geodesicAreaM2([hole]);
     expect(geodesicAreaM2([outer, hole])).toBeCloseTo(outerM2 - holeM2, 4);
     expect(multiPolygonAreaM2([[outer, hole], [hole]]) / outerM2).toBeCloseTo(1, 6);
+  });
+});
+
+describe("rankingAreaM2 (the quick area that orders overlapping polygons)", () => {
+  /** Each straight lon/lat edge as 32 short geodesics, so GeographicLib measures the same shape. */
+  const densified = (ring: readonly LonLat[]): LonLat[] =>
+    ring.flatMap((a, i) => {
+      const b = ring[(i + 1) % ring.length]!;
+      return Array.from({ length: 32 }, (_, j): LonLat => [
+        a[0] + ((b[0] - a[0]) * j) / 32,
+        a[1] + ((b[1] - a[1]) * j) / 32,
+      ]);
+    });
+
+  it("is within 0.01 % of GeographicLib's area of the same straight-edged polygon under 0.05° across (property)", () => {
+    const polygon = fc.record({
+      lat: fc.double({ min: -79, max: 79, noNaN: true }),
+      lon: fc.double({ min: -179, max: 179, noNaN: true }),
+      turn: fc.double({ min: 0, max: 1, noNaN: true }),
+      radii: fc.array(fc.double({ min: 0.002, max: 0.024, noNaN: true }), {
+        minLength: 3,
+        maxLength: 9,
+      }),
+    });
+    fc.assert(
+      fc.property(polygon, ({ lat, lon, turn, radii }) => {
+        // A star around (lon, lat) with vertices at evenly spaced angles: always a simple ring.
+        const ring: LonLat[] = radii.map((r, k) => {
+          const angle = (2 * Math.PI * (k + turn)) / radii.length;
+          return [lon + r * Math.cos(angle), lat + r * Math.sin(angle)];
+        });
+        const reference = geodesicAreaM2([densified(ring)]);
+        expect(Math.abs(rankingAreaM2([ring]) - reference) / reference).toBeLessThan(1e-4);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it("uses the geodesic area for a polygon over 0.05° across", () => {
+    const ring: LonLat[] = [
+      [10, 50],
+      [10.2, 50],
+      [10.2, 50.1],
+      [10, 50.1],
+    ];
+    expect(rankingAreaM2([ring])).toBe(geodesicAreaM2([ring]));
   });
 });

@@ -9,6 +9,7 @@ export {
   lerpLonLat,
   multiPolygonAreaM2,
   pathLengthsM,
+  rankingAreaM2,
   stationOnEdgeM,
   type PathLengths,
 } from "./geodesic";

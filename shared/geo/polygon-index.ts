@@ -4,13 +4,13 @@
  * Rings are kept as flat Float64Arrays [x0, y0, …, x0, y0] (closed) for fast planar tests.
  *
  * Overlap rule. Where polygons of one layer overlap, the polygon with the smallest area (of its
- * whole feature, on the WGS84 ellipsoid) wins: the more specific feature, e.g. a building drawn
+ * whole feature, on the WGS84 ellipsoid, see rankingAreaM2) wins: the more specific feature, e.g. a building drawn
  * on top of a lawn parcel. Ties go to the lower featureId. Boundaries count as inside, so a
  * path running along a shared edge takes the value of the winner of the two neighbours.
  * Multipolygons arrive as several entries with the same featureId and rank together.
  */
 import Flatbush from "flatbush";
-import { geodesicAreaM2 } from "./geodesic";
+import { rankingAreaM2 } from "./geodesic";
 import { ON_LINE_EPS_DEG, pointInRings } from "./planar";
 import type { ValuedPolygon } from "./types";
 
@@ -58,7 +58,7 @@ function flatRing(featureId: number, ring: readonly (readonly [number, number])[
 function ranksBySmallestArea<V>(polygons: readonly ValuedPolygon<V>[]): Int32Array {
   const featureAreaM2 = new Map<number, number>();
   for (const p of polygons) {
-    featureAreaM2.set(p.featureId, (featureAreaM2.get(p.featureId) ?? 0) + geodesicAreaM2(p.rings));
+    featureAreaM2.set(p.featureId, (featureAreaM2.get(p.featureId) ?? 0) + rankingAreaM2(p.rings));
   }
   const order = polygons.map((_, i) => i);
   order.sort((i, j) => {
