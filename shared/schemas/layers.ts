@@ -52,30 +52,34 @@ export const layerProblemSchema = z.object({
 });
 export type LayerProblem = z.infer<typeof layerProblemSchema>;
 
-export type Bbox = readonly [west: number, south: number, east: number, north: number];
+/** [west, south, east, north] in degrees, WGS84. */
+export const bboxSchema = z.tuple([z.number(), z.number(), z.number(), z.number()]);
+export type Bbox = z.infer<typeof bboxSchema>;
 
-export interface Layer {
-  id: string;
-  projectId: string;
-  kind: LayerKind;
-  name: string;
-  format: string;
-  originalFilename: string;
-  sizeBytes: number;
-  status: LayerStatus;
-  progress: LayerProgress;
-  error: LayerError | null;
-  notes: LayerNote[];
-  problems: LayerProblem[];
-  featureCount: number;
-  fields: string[];
-  mappingField: string | null;
+export const layerSchema = z.object({
+  id: idSchema,
+  projectId: idSchema,
+  kind: z.enum(LAYER_KINDS),
+  name: z.string(),
+  /** shapefile | kml | kmz | gpx | geojson | geotiff */
+  format: z.string(),
+  originalFilename: z.string(),
+  sizeBytes: z.number().int(),
+  status: z.enum(LAYER_STATUSES),
+  progress: layerProgressSchema,
+  error: layerErrorSchema.nullable(),
+  notes: z.array(layerNoteSchema),
+  problems: z.array(layerProblemSchema),
+  featureCount: z.number().int(),
+  fields: z.array(z.string()),
+  mappingField: z.string().nullable(),
   /** Terrain: size, pixel size, CRS, vertical unit, nodata (as read from the file). */
-  terrain: Record<string, unknown> | null;
-  bbox4326: Bbox | null;
-  createdAt: string;
-  updatedAt: string;
-}
+  terrain: z.record(z.string(), z.unknown()).nullable(),
+  bbox4326: bboxSchema.nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Layer = z.infer<typeof layerSchema>;
 
 /** Long-poll: answer as soon as the layer is ready or failed, or after this many ms. */
 export const layerPollQuery = z.object({
@@ -117,22 +121,28 @@ export const soilMappingBody = z.strictObject({
 export type CoverMappingBody = z.infer<typeof coverMappingBody>;
 export type SoilMappingBody = z.infer<typeof soilMappingBody>;
 
-export type SuggestionConfidence = "exact" | "likely";
+export const suggestionConfidence = z.enum(["exact", "likely"]);
+export type SuggestionConfidence = z.infer<typeof suggestionConfidence>;
 
 /** One distinct value of a layer's field, with what it maps to now and what we suggest. */
-export interface FieldValue {
-  value: string;
-  featureCount: number;
+export const fieldValueSchema = z.object({
+  value: z.string(),
+  featureCount: z.number().int(),
   /** Cover: the mapped class id; soil: the mapped HSG; null when unmapped. */
-  mapped: string | null;
-  suggestion: { target: string; label: string; confidence: SuggestionConfidence } | null;
-}
+  mapped: z.string().nullable(),
+  /** Cover: a class id; soil: an HSG. */
+  suggestion: z
+    .object({ target: z.string(), label: z.string(), confidence: suggestionConfidence })
+    .nullable(),
+});
+export type FieldValue = z.infer<typeof fieldValueSchema>;
 
-export interface FieldValues {
-  field: string;
-  kind: "cover" | "soil";
+export const fieldValuesSchema = z.object({
+  field: z.string(),
+  kind: z.enum(["cover", "soil"]),
   /** Every distinct value (up to 10,000), most features first. */
-  values: FieldValue[];
+  values: z.array(fieldValueSchema),
   /** Values beyond the list's cap. */
-  truncated: boolean;
-}
+  truncated: z.boolean(),
+});
+export type FieldValues = z.infer<typeof fieldValuesSchema>;

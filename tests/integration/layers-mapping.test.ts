@@ -1,6 +1,7 @@
 import { and, eq, isNotNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { layerFeatures, surfaceClasses } from "../../server/db/schema-geodata";
+import { fieldValuesSchema, layerSchema } from "../../shared/schemas/layers";
 import { createTeam, signIn, startTestApp, type Agent, type TestApp } from "../support/app";
 import { coverShapefileZip, FileKit, SOIL_GEOJSON } from "../support/layer-files";
 import { leftovers, uploadLayer } from "../support/layers";
@@ -52,6 +53,7 @@ describe("cover mapping", () => {
     const res = await gis.get(`/api/layers/${coverId}/fields/LANDUSE/values`);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ field: "LANDUSE", kind: "cover", truncated: false });
+    expect(fieldValuesSchema.safeParse(res.body).error).toBeUndefined();
     expect(res.body.values).toEqual([
       {
         value: "WOODS",
@@ -198,6 +200,8 @@ describe("reading and deleting layers", () => {
   it("lists the project's layers with status and counts", async () => {
     const res = await gis.get(`/api/projects/${projectId}/layers`);
     expect(res.status).toBe(200);
+    // The answer is what the published schema (OpenAPI) says it is.
+    expect(layerSchema.array().safeParse(res.body).error).toBeUndefined();
     const ids = res.body.map((l: { id: string }) => l.id);
     expect(ids).toEqual(expect.arrayContaining([coverId, soilId]));
     expect(res.body.find((l: { id: string }) => l.id === soilId)).toMatchObject({
