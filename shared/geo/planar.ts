@@ -7,9 +7,9 @@
  */
 
 /**
- * Tolerance for "on the line" tests, in squared-degree units of a cross product normalised by
- * the segment length: 1e-12° is about 0.1 µm on the ground, far below survey precision but far
- * above float noise for coordinates of magnitude ≤ 180.
+ * Tolerance of the "on the line" tests, as a distance in degrees from the line: 1e-12° is about
+ * 0.1 µm on the ground, far below survey precision but above the float noise of coordinates of
+ * magnitude ≤ 180 (their spacing is 2.8e-14°).
  */
 export const ON_LINE_EPS_DEG = 1e-12;
 
