@@ -25,9 +25,15 @@ const EXTENSIONS: Record<FileFormat, string> = {
   csv: ".csv",
 };
 
-/** The size limit that applies to a layer kind, as the form announced it. */
+/**
+ * The size limit of the layer kind the form announced before the file; a form that names its
+ * kind only after the file is held to the largest limit while streaming and checked after.
+ */
 export function layerLimit(deps: RouteDeps, body: Record<string, unknown>) {
   const { vector, terrain } = deps.config.uploads.limitsBytes;
+  if (body.kind === undefined) {
+    return { what: "any layer", bytes: Math.max(vector, terrain) };
+  }
   return body.kind === "terrain"
     ? { what: "terrain files", bytes: terrain }
     : { what: "vector layers", bytes: vector };
