@@ -15,4 +15,15 @@ export const queryKeys = {
   outbox: ["outbox"] as const,
   outboxMessage: (messageId: string) => ["outbox", messageId] as const,
   invitation: (token: string) => ["invitations", token] as const,
+  // Geodata: a project's subcatchments, layers, rainfall and rules; a team's Surface catalog.
+  subcatchments: (projectId: string) => ["projects", projectId, "subcatchments"] as const,
+  subcatchment: (subcatchmentId: string) => ["subcatchments", subcatchmentId] as const,
+  sheet: (subcatchmentId: string) => ["subcatchments", subcatchmentId, "sheet"] as const,
+  layers: (projectId: string) => ["projects", projectId, "layers"] as const,
+  layer: (layerId: string) => ["layers", layerId] as const,
+  fieldValues: (layerId: string, field: string) => ["layers", layerId, "fields", field] as const,
+  rainfallTables: (projectId: string) => ["projects", projectId, "rainfall-tables"] as const,
+  designRules: (projectId: string) => ["projects", projectId, "design-rules"] as const,
+  surfaceClasses: (teamId: string) => ["teams", teamId, "surface-classes"] as const,
+  projectSurfaceClasses: (projectId: string) => ["projects", projectId, "surface-classes"] as const,
 };
