@@ -92,6 +92,7 @@ describe("bad fixtures are refused and leave nothing", () => {
     ["cover", "zip-slip.zip", /\.\./],
     ["cover", "no-dbf.zip", /\.dbf/],
     ["cover", "no-prj.zip", /\.prj/],
+    ["cover", "wrong-prj.zip", /outside WGS84 longitude\/latitude/],
     ["cover", "bowtie-utm10.zip", /feature \d+ .*Self-intersection/],
     ["cover", "empty-geometry.zip", /feature \d+/],
     ["terrain", "no-georef.tif", /no-georef\.tif/],
