@@ -133,48 +133,45 @@ export async function putDesignRules(
   });
 }
 
-type Role = "boundary" | "outlet" | "flow-path";
-
-/** The subcatchment file read by the same reader as an uploaded KML; geometry by role. */
-async function subcatchmentGeometry(dir: string, file: string): Promise<Record<Role, Geometry>> {
+/** The outlet from the subcatchment file, read by the same reader as an uploaded KML. */
+async function outletOf(dir: string, file: string): Promise<Geometry> {
   const read = await readVectorFile(path.join(dir, file), "kml", file);
-  const byRole = (role: Role): Geometry => {
-    const found = read.features.find((f) => f.properties.role === role);
-    if (!found) throw new Error(`${file}: no Placemark with role ${role}`);
-    return found.geometry;
-  };
-  return {
-    boundary: byRole("boundary"),
-    outlet: byRole("outlet"),
-    "flow-path": byRole("flow-path"),
-  };
+  const found = read.features.find((f) => f.geometry.type === "Point");
+  if (!found) throw new Error(`${file}: no outlet point`);
+  return found.geometry;
 }
 
-/** Creates the subcatchment with its boundary, outlet and channel, then sends its flow path. */
+/**
+ * Creates the subcatchment with its outlet and channel section, then sends the KML twice as a
+ * user would: once as its boundary (the file's one polygon), once as its flow path (its one line).
+ */
 export async function createSubcatchment(
   engineer: ApiClient,
   projectId: string,
   dir: string,
   demo: DemoScenario["subcatchment"],
 ): Promise<Subcatchment> {
-  const geometry = await subcatchmentGeometry(dir, demo.file);
   const created = await engineer.json<Subcatchment>(
     "POST",
     `/projects/${projectId}/subcatchments`,
     {
       name: demo.name,
       scenario: demo.scenario,
-      boundary: geometry.boundary,
-      outlet: geometry.outlet,
+      outlet: await outletOf(dir, demo.file),
       channel: demo.channel,
       note: demo.note,
     },
   );
-  await engineer.json("PUT", `/subcatchments/${created.id}/flow-path`, {
-    geometry: geometry["flow-path"],
-    version: 0,
-  });
-  return engineer.get<Subcatchment>(`/subcatchments/${created.id}`);
+  const file = path.join(dir, demo.file);
+  await engineer.upload(`/subcatchments/${created.id}/boundary/file`, file, {});
+  const done = await engineer.upload<Subcatchment>(
+    `/subcatchments/${created.id}/flow-path/file`,
+    file,
+    {
+      version: "0",
+    },
+  );
+  return done.body;
 }
 
 /** Runs every method on the subcatchment; the sheet is stored as its current result. */
