@@ -1,9 +1,10 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as coreSchema from "./schema";
+import * as basemapSchema from "./schema-basemap";
 import * as geodataSchema from "./schema-geodata";
 
-const schema = { ...coreSchema, ...geodataSchema };
+const schema = { ...coreSchema, ...geodataSchema, ...basemapSchema };
 
 export type Db = NodePgDatabase<typeof schema>;
 /** The handle inside `db.transaction(async (tx) => …)`. */
