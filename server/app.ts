@@ -22,6 +22,7 @@ import { invitationLinkRouter, teamInvitationsRouter } from "./routes/invitation
 import { layerMappingRouter } from "./routes/layer-mapping";
 import { layersRouter } from "./routes/layers";
 import { membersRouter } from "./routes/members";
+import { openapiRouter } from "./routes/openapi";
 import { outboxRouter } from "./routes/outbox";
 import { projectsRouter } from "./routes/projects";
 import { rainfallRouter } from "./routes/rainfall";
@@ -90,6 +91,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     computeRouter,
     rainfallUploadRouter,
     subcatchmentFilesRouter,
+    openapiRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);
