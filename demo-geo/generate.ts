@@ -13,6 +13,7 @@ import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import type { Feature, Geometry, Position } from "geojson";
 import { geoTiffBytes } from "../server/geodata/writers";
+import { BASEMAP_FILE, basemapGeoJson } from "./basemap";
 import { coverPolygons } from "./cover";
 import { kmlDocument } from "./kml";
 import { boundaryRing, channelLine, DIVIDE, flowPath, OUTLET } from "./paths";
@@ -118,6 +119,7 @@ export function demoFiles(): Record<string, Uint8Array> {
     [OUT_FILES.rainfall]: text.encode(idfCsv()),
     [OUT_FILES.subcatchment]: text.encode(subcatchmentKml()),
     [OUT_FILES.scenario]: text.encode(`${JSON.stringify(scenarioDocument(), null, 2)}\n`),
+    [BASEMAP_FILE]: text.encode(basemapGeoJson()),
   };
 }
 
