@@ -1,8 +1,8 @@
+import { type ReactNode } from "react";
 import { Link, useParams } from "react-router-dom";
 import { can } from "../../../../shared/roles";
 import { linkClass } from "../../../components/link-styles";
 import { PageHeader } from "../../../components/PageHeader";
-import { Panel } from "../../../components/Panel";
 import { LoadError, Loading } from "../../../components/QueryStatus";
 import { useMembership } from "../../../lib/session";
 import { useProject } from "../api/get-project";
@@ -10,22 +10,8 @@ import { DeleteProject } from "./DeleteProject";
 import { ProjectSettings } from "./ProjectSettings";
 import { DemoTag } from "./ProjectsTable";
 
-function Subcatchments() {
-  return (
-    <Panel title="Subcatchments" titleId="project-subcatchments">
-      <div className="rounded-md border border-dashed border-ink-300 bg-paper/60 px-6 py-8 text-center">
-        <p className="font-medium text-ink-800">No subcatchments yet</p>
-        <p className="mx-auto mt-1 max-w-lg text-sm text-ink-500">
-          Subcatchments are drawn on the Map desk once the project has its layers — land cover,
-          soils and terrain. Each one then gets its flow path, travel-time sheet and calculation
-          records, listed here.
-        </p>
-      </div>
-    </Panel>
-  );
-}
-
-export function ProjectPage() {
+/** The project overview; `panels` are other features' panels, placed by the route. */
+export function ProjectPage({ panels }: { panels?: ReactNode }) {
   const { projectId = "" } = useParams();
   const project = useProject(projectId);
   const membership = useMembership(project.data?.teamId);
@@ -57,7 +43,7 @@ export function ProjectPage() {
       />
       <div className="space-y-6">
         <ProjectSettings project={p} mayEdit={role ? can(role, "project:edit") : false} />
-        <Subcatchments />
+        {panels}
         {role && can(role, "project:delete") && <DeleteProject project={p} />}
       </div>
       <p className="mt-6 text-sm text-ink-500">
