@@ -8,6 +8,7 @@ import {
   sendCase,
   type RouteFixture,
 } from "../support/route-table";
+import { GEODATA_ROUTE_CASES } from "../support/route-table-geodata";
 
 let t: TestApp;
 let fixture: RouteFixture;
@@ -54,6 +55,7 @@ describe("another team's user", () => {
         "GET /api/layers/:layerId/features",
         "GET /api/layers/:layerId/fields/:field/values",
         "PUT /api/layers/:layerId/mapping",
+        ...GEODATA_ROUTE_CASES.map((c) => `${c.method.toUpperCase()} ${c.route}`),
       ].sort(),
     );
   });

@@ -15,6 +15,7 @@ import {
   type Agent,
   type TestTeam,
 } from "./app";
+import { GEODATA_ROUTE_CASES } from "./route-table-geodata";
 
 /** The objects a route case acts on: one team (one member per role) with one project. */
 export interface RouteFixture {
@@ -344,6 +345,7 @@ export const ROUTE_CASES: RouteCase[] = [
     }),
     expected: table(200, 200, 403, 200, 403, 403),
   },
+  ...GEODATA_ROUTE_CASES,
 ];
 
 /** Sends a route case's request: JSON body, multipart upload, or neither. */
