@@ -6,6 +6,7 @@ import { run as hydrology } from "./hydrology";
 import { run as split } from "./split";
 import { run as ingest } from "./ingest";
 import { run as readers } from "./readers";
+import { run as compute } from "./compute";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -13,6 +14,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "flow path split", run: split },
   { name: "file readers", run: readers },
   { name: "layer upload pipeline", run: ingest },
+  { name: "demo compute", run: compute },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

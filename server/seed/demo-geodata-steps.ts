@@ -11,7 +11,7 @@ import type { TravelTimeSheet } from "../../shared/schemas/sheet";
 import type { Subcatchment } from "../../shared/schemas/subcatchments";
 import { readVectorFile } from "../geodata/readers";
 import type { ApiClient } from "./api-client";
-import type { DemoLayer, DemoScenario } from "./demo-scenario";
+import { readDemoScenario, type DemoLayer, type DemoScenario } from "./demo-scenario";
 
 /** How long the seed waits for one layer's background ingest before giving up. */
 const LAYER_DEADLINE_MS = 120_000;
@@ -188,4 +188,31 @@ export async function computeSubcatchment(
     throw new Error(`the demo subcatchment did not compute: ${sheet.problems.join("; ")}`);
   }
   return sheet;
+}
+
+/**
+ * The whole scenario into one project: the GIS specialist's layers and mappings, then the
+ * engineer's catalog override, rainfall, rules and subcatchment, computed. Answers the
+ * subcatchment's id; `onLayer` hears of each layer as soon as it exists (for clean-up).
+ */
+export async function loadDemoScenario(
+  people: { gis: ApiClient; engineer: ApiClient },
+  project: { id: string; teamId: string },
+  dir: string,
+  onLayer: (layerId: string) => void = () => undefined,
+): Promise<string> {
+  const { gis, engineer } = people;
+  const scenario = await readDemoScenario(dir);
+  for (const demo of scenario.layers) {
+    const layer = await uploadLayer(gis, project.id, dir, demo);
+    onLayer(layer.id);
+    if (demo.kind === "cover") await mapCover(gis, project.teamId, layer, demo);
+    if (demo.kind === "soil") await mapSoil(gis, layer, demo);
+  }
+  await putCatalogOverrides(engineer, project.id, scenario.catalogOverrides);
+  const rainfall = await uploadRainfall(engineer, project.id, dir, scenario.rainfall);
+  await putDesignRules(engineer, project.id, scenario.designRules, rainfall.id);
+  const subcatchment = await createSubcatchment(engineer, project.id, dir, scenario.subcatchment);
+  await computeSubcatchment(engineer, subcatchment.id);
+  return subcatchment.id;
 }

@@ -21,17 +21,8 @@ import {
 } from "../db/schema-geodata";
 import { ApiClient } from "./api-client";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./demo";
-import {
-  computeSubcatchment,
-  createSubcatchment,
-  mapCover,
-  mapSoil,
-  putCatalogOverrides,
-  putDesignRules,
-  uploadLayer,
-  uploadRainfall,
-} from "./demo-geodata-steps";
-import { DEMO_OUT_DIR, readDemoScenario } from "./demo-scenario";
+import { loadDemoScenario } from "./demo-geodata-steps";
+import { DEMO_OUT_DIR } from "./demo-scenario";
 
 export const DEMO_GEODATA_SEED_NAME = "demo-geodata-v1";
 // One process seeds at a time (two servers starting on one database).
@@ -117,24 +108,12 @@ async function load(
   project: { id: string; teamId: string },
   made: Made,
 ): Promise<string> {
-  const dir = options.dir ?? DEMO_OUT_DIR;
-  const scenario = await readDemoScenario(dir);
   const gis = await ApiClient.signIn(options.baseUrl, account("gis"), DEMO_PASSWORD);
   made.gis = gis;
   const engineer = await ApiClient.signIn(options.baseUrl, account("engineer"), DEMO_PASSWORD);
-
-  for (const demo of scenario.layers) {
-    const layer = await uploadLayer(gis, project.id, dir, demo);
-    made.layerIds.push(layer.id);
-    if (demo.kind === "cover") await mapCover(gis, project.teamId, layer, demo);
-    if (demo.kind === "soil") await mapSoil(gis, layer, demo);
-  }
-  await putCatalogOverrides(engineer, project.id, scenario.catalogOverrides);
-  const rainfall = await uploadRainfall(engineer, project.id, dir, scenario.rainfall);
-  await putDesignRules(engineer, project.id, scenario.designRules, rainfall.id);
-  const subcatchment = await createSubcatchment(engineer, project.id, dir, scenario.subcatchment);
-  await computeSubcatchment(engineer, subcatchment.id);
-  return subcatchment.id;
+  return loadDemoScenario({ gis, engineer }, project, options.dir ?? DEMO_OUT_DIR, (id) =>
+    made.layerIds.push(id),
+  );
 }
 
 /**
