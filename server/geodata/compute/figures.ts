@@ -35,6 +35,8 @@ interface WeightRow extends Record<string, unknown> {
   area_m2: number | string;
 }
 
+const LAND_SLOPE_POINTS = 2500;
+
 const pct = (part: number, whole: number) => `${((100 * part) / whole).toFixed(1)} %`;
 
 /** Cover × soil pieces inside the boundary, area per (class, HSG); soil missing → hsg null. */
@@ -139,7 +141,12 @@ export async function subcatchmentFigures(
   };
 }
 
-/** Terrain sampled every 2 m (at most 40,000 points), slope by central differences. */
+/**
+ * Terrain sampled on a grid over the boundary, slope by central differences, averaged (the grid
+ * method of NEH 630 Ch 15 for the lag equation's average land slope [from memory]). About 2,500
+ * points: every 2 m on a small subcatchment, wider spacing on a large one, which keeps a compute
+ * fast; a finer grid changes the average little on real ground.
+ */
 async function landSlope(
   rings: readonly (readonly LonLat[])[] | undefined,
   terrain: TerrainSampler | null,
@@ -151,7 +158,7 @@ async function landSlope(
     );
     return null;
   }
-  const grid = gridOverPolygon(rings, 2);
+  const grid = gridOverPolygon(rings, 2, LAND_SLOPE_POINTS);
   const inside = grid.points.filter((p): p is LonLat => p !== null);
   const z = await terrain.elevationsM(inside);
   let k = 0;

@@ -100,65 +100,73 @@ export async function loadComputeData(
   project: ProjectRow,
   subcatchmentId: string,
 ): Promise<ComputeData> {
-  const [sub] = await db
-    .select({
-      s: subcatchments,
-      boundary: sql<string | null>`ST_AsGeoJSON(${subcatchments.boundary}, 15)`,
-    })
-    .from(subcatchments)
-    .where(eq(subcatchments.id, subcatchmentId));
+  // Independent reads, side by side (a compute should answer in tens of milliseconds).
+  const [[sub], [fp], breakRows, surveyed, rules, classRows, [terrain]] = await Promise.all([
+    db
+      .select({
+        s: subcatchments,
+        boundary: sql<string | null>`ST_AsGeoJSON(${subcatchments.boundary}, 15)`,
+      })
+      .from(subcatchments)
+      .where(eq(subcatchments.id, subcatchmentId)),
+    db
+      .select({ g: sql<string>`ST_AsGeoJSON(${flowPaths.geom}, 15)`, version: flowPaths.version })
+      .from(flowPaths)
+      .where(eq(flowPaths.subcatchmentId, subcatchmentId)),
+    db.select().from(regimeBreaks).where(eq(regimeBreaks.subcatchmentId, subcatchmentId)),
+    db
+      .select({ stationM: elevationOverrides.stationM, elevationM: elevationOverrides.elevationM })
+      .from(elevationOverrides)
+      .where(eq(elevationOverrides.subcatchmentId, subcatchmentId))
+      .orderBy(asc(elevationOverrides.stationM)),
+    loadDesignRules(db, project.id),
+    projectClasses(db, project.teamId, project.id),
+    db
+      .select({ objectKey: layers.objectKey, info: layers.terrain, name: layers.name })
+      .from(layers)
+      .where(
+        and(
+          eq(layers.projectId, project.id),
+          eq(layers.kind, "terrain"),
+          eq(layers.status, "ready"),
+        ),
+      )
+      .orderBy(desc(layers.createdAt))
+      .limit(1),
+  ]);
   if (!sub) throw new Error(`subcatchment ${subcatchmentId} vanished`);
-  const [fp] = await db
-    .select({ g: sql<string>`ST_AsGeoJSON(${flowPaths.geom}, 15)`, version: flowPaths.version })
-    .from(flowPaths)
-    .where(eq(flowPaths.subcatchmentId, subcatchmentId));
   const path = fp
     ? (JSON.parse(fp.g) as { coordinates: number[][] }).coordinates.map(toLonLat)
     : null;
-  const breakRows = await db
-    .select()
-    .from(regimeBreaks)
-    .where(eq(regimeBreaks.subcatchmentId, subcatchmentId));
-  const surveyed = await db
-    .select({ stationM: elevationOverrides.stationM, elevationM: elevationOverrides.elevationM })
-    .from(elevationOverrides)
-    .where(eq(elevationOverrides.subcatchmentId, subcatchmentId))
-    .orderBy(asc(elevationOverrides.stationM));
-  const rules = await loadDesignRules(db, project.id);
   const { rainfall, rainfallProblem } = await chooseRainfall(db, project, rules.rainfallTableId);
   const classes = new Map<string, SurfaceParams>();
-  for (const c of await projectClasses(db, project.teamId, project.id)) {
+  for (const c of classRows) {
     classes.set(c.id, { id: c.id, key: c.key, name: c.name, values: c.values as SurfaceValues });
   }
-  // Features whose box meets the path's box; the boundary's too, for the subcatchment figures.
+  // Features whose box meets the path's box (the GiST index answers it).
   const box = fp
     ? sql`(select ST_Envelope(geom) from flow_paths where subcatchment_id = ${subcatchmentId})`
     : sql`ST_GeomFromText('POLYGON EMPTY', 4326)`;
-  const cover = (await featuresNear(db, project.id, "cover", box)).flatMap((f) =>
+  const [coverRows, soilRows, channelRows] = await Promise.all([
+    featuresNear(db, project.id, "cover", box),
+    featuresNear(db, project.id, "soil", box),
+    featuresNear(db, project.id, "channel", box),
+  ]);
+  const cover = coverRows.flatMap((f) =>
     polygonParts(f.geometry).map((rings) => ({
       featureId: f.id,
       rings,
       value: f.surfaceClassId && classes.has(f.surfaceClassId) ? f.surfaceClassId : null,
     })),
   );
-  const soil = (await featuresNear(db, project.id, "soil", box)).flatMap((f) =>
+  const soil = soilRows.flatMap((f) =>
     polygonParts(f.geometry).map((rings) => ({
       featureId: f.id,
       rings,
       value: isHsg(f.hsg) ? f.hsg : null,
     })),
   );
-  const channelLines = (await featuresNear(db, project.id, "channel", box)).flatMap((f) =>
-    lineParts(f.geometry),
-  );
-  const [terrain] = await db
-    .select({ objectKey: layers.objectKey, info: layers.terrain, name: layers.name })
-    .from(layers)
-    .where(
-      and(eq(layers.projectId, project.id), eq(layers.kind, "terrain"), eq(layers.status, "ready")),
-    )
-    .orderBy(desc(layers.createdAt))
-    .limit(1);
+  const channelLines = channelRows.flatMap((f) => lineParts(f.geometry));
   const s = sub.s;
   return {
     project,

@@ -45,7 +45,8 @@ export async function computeSheet(
   let terrain: TerrainSampler | null = null;
   try {
     terrain = await openProjectTerrain(store, data.terrain);
-    const figures = await subcatchmentFigures(db, {
+    // The figures (PostGIS areas, land slope) and the path work are independent.
+    const figuresPending = subcatchmentFigures(db, {
       projectId: project.id,
       subcatchmentId,
       units,
@@ -54,6 +55,10 @@ export async function computeSheet(
       dualHsg: data.rules.dualHsg,
       terrain,
     });
+    const [figures, computedProfile] = await Promise.all([
+      figuresPending,
+      data.path ? pathProfile(data, terrain) : Promise.resolve(null),
+    ]);
     const frameBase = {
       project: { id: project.id, name: project.name },
       subcatchment: {
@@ -79,7 +84,7 @@ export async function computeSheet(
         sourceNote: data.rainfall.sourceNote,
       },
     } as const;
-    if (!data.path) {
+    if (!data.path || !computedProfile) {
       const problems = ["The subcatchment has no flow path: draw or upload one."];
       return assembleSheet(
         {
@@ -100,7 +105,7 @@ export async function computeSheet(
         problems,
       );
     }
-    const profile = await pathProfile(data, terrain);
+    const profile = computedProfile;
     const built = buildRows(profile.sources, {
       units,
       classes: data.classes,
