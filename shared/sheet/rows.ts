@@ -43,7 +43,7 @@ export interface RowContext {
   readonly channel: { readonly manningN: number; readonly section: unknown } | null;
 }
 
-/** Dual groups follow the design rule: drained takes the first letter, undrained D (TR-55 ch 2). */
+/** Dual groups follow the design rule: drained takes the first letter, undrained D (NEH 630 Ch 7). */
 export function resolveHsg(
   hsg: HsgCode | null,
   rule: "drained" | "undrained",
