@@ -60,10 +60,39 @@ const signedInRoutes: RouteObject[] = [
     }),
   },
   {
-    path: "projects/:projectId",
+    path: "teams/:teamId/catalog",
     lazy: async () => ({
-      Component: (await import("../features/projects/components/ProjectPage")).ProjectPage,
+      Component: (await import("../features/catalog/components/CatalogPage")).CatalogPage,
     }),
+  },
+  {
+    path: "projects/:projectId",
+    lazy: async () => ({ Component: (await import("./ProjectLayout")).ProjectLayout }),
+    children: [
+      {
+        index: true,
+        lazy: async () => ({ Component: (await import("./ProjectOverview")).ProjectOverview }),
+      },
+      {
+        path: "layers",
+        lazy: async () => ({
+          Component: (await import("../features/layers/components/LayersPage")).LayersPage,
+        }),
+      },
+      {
+        path: "rainfall",
+        lazy: async () => ({
+          Component: (await import("../features/rainfall/components/RainfallPage")).RainfallPage,
+        }),
+      },
+      {
+        path: "rules",
+        lazy: async () => ({
+          Component: (await import("../features/design-rules/components/DesignRulesPage"))
+            .DesignRulesPage,
+        }),
+      },
+    ],
   },
   {
     path: "account",

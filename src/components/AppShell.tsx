@@ -104,6 +104,12 @@ export function AppShell({
                 >
                   Team
                 </NavLink>
+                <NavLink
+                  to={`/teams/${currentTeamId}/catalog`}
+                  className={({ isActive }) => navClass(isActive)}
+                >
+                  Surface catalog
+                </NavLink>
               </>
             )}
             {showOutbox && (
