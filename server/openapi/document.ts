@@ -1,4 +1,5 @@
 /** Rillmark's API as an OpenAPI 3.1 document, generated from the zod schemas of shared/schemas. */
+import "./extend-zod";
 import { OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { registerCorePaths } from "./paths-core";
 import { registerGeodataPaths } from "./paths-geodata";

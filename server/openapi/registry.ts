@@ -2,17 +2,12 @@
  * A thin helper over zod-to-openapi's registry: one call per route with its summary, the
  * permission it needs, its body and its answer, so every route reads the same in the document.
  */
-import {
-  extendZodWithOpenApi,
-  OpenAPIRegistry,
-  type RouteConfig,
-} from "@asteasolutions/zod-to-openapi";
+import "./extend-zod";
+import { OpenAPIRegistry, type RouteConfig } from "@asteasolutions/zod-to-openapi";
 import { z } from "zod";
 import type { Permission } from "../../shared/roles";
 import { apiErrorSchema } from "../../shared/schemas/common";
 import { openApiPath } from "./mounted-routes";
-
-extendZodWithOpenApi(z);
 
 export interface RouteDoc {
   summary: string;
