@@ -178,6 +178,54 @@ describe("compute", () => {
     expect(JSON.stringify(s)).not.toMatch(/NaN/);
   });
 
+  it("measures the subcatchment's area on the ellipsoid like PostGIS (within 0.01 %)", async () => {
+    const result = await t.db.execute<{ m2: number }>(sql`
+      select ST_Area(boundary::geography) as m2 from subcatchments where id = ${c.subcatchmentId}`);
+    const postgisHa = Number(result.rows[0]?.m2) / 10_000;
+    expect(Math.abs((sheet.figures.area ?? 0) - postgisHa) / postgisHa).toBeLessThan(1e-4);
+  });
+
+  it("takes channel slopes between 10 % and 85 % of the length when the rules say 10-85", async () => {
+    const other = await buildGeodataCase(t, "compute-1085");
+    const put = await other.engineer.put(`/api/projects/${other.projectId}/design-rules`).send({
+      rules: {},
+      dualHsg: "undrained",
+      channelSlope: "10-85",
+      profileSpacingM: 5,
+      version: 0,
+    });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    const res = await other.engineer
+      .post(`/api/subcatchments/${other.subcatchmentId}/compute`)
+      .send({});
+    const channel = (res.body as TravelTimeSheet).segments.filter((s) => s.regime === "channel");
+    expect(channel.length).toBeGreaterThan(0);
+    const lengths = pathLengthsM(path);
+    for (const s of channel) {
+      const l = s.stationToM - s.stationFromM;
+      const z10 = planeElevationM(pointAtStation(path, lengths, s.stationFromM + 0.1 * l));
+      const z85 = planeElevationM(pointAtStation(path, lengths, s.stationFromM + 0.85 * l));
+      expect(Math.abs((s.slope ?? Number.NaN) - (z10 - z85) / (0.75 * l))).toBeLessThan(1e-6);
+    }
+  });
+
+  it("lets a surveyed elevation override the terrain at its station", async () => {
+    const other = await buildGeodataCase(t, "compute-survey");
+    await other.engineer
+      .put(`/api/subcatchments/${other.subcatchmentId}/elevations`)
+      .send({ entries: [{ station: 0, elevation: 190.25, note: "rod shot at the divide" }] });
+    const res = await other.engineer
+      .post(`/api/subcatchments/${other.subcatchmentId}/compute`)
+      .send({});
+    const first = (res.body as TravelTimeSheet).segments[0];
+    expect(first?.elevationUp).toBe(190.25);
+    expect(first?.elevationSource).toBe("mixed");
+    expect(first?.slope).toBeCloseTo(
+      (190.25 - (first?.elevationDown ?? 0)) / (first?.length ?? 1),
+      12,
+    );
+  });
+
   it("answers 404 for a sheet never computed", async () => {
     const made = await c.engineer
       .post(`/api/projects/${c.projectId}/subcatchments`)
