@@ -30,6 +30,7 @@ import { rainfallUploadRouter } from "./routes/rainfall-upload";
 import { subcatchmentFilesRouter } from "./routes/subcatchment-files";
 import { subcatchmentsRouter } from "./routes/subcatchments";
 import { teamsRouter } from "./routes/teams";
+import { tilesRouter } from "./routes/tiles";
 import type { ObjectStore } from "./storage";
 
 export interface AppDeps {
@@ -92,11 +93,14 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     rainfallUploadRouter,
     subcatchmentFilesRouter,
     openapiRouter,
+    tilesRouter,
   ];
   for (const router of routers) api.use(router(routeDeps));
   api.use(apiNotFound);
 
-  app.use(securityHeaders(config.publicBaseUrl));
+  // An admin's own basemap style (BASEMAP_STYLE_URL) is fetched by the browser from its host.
+  const mapOrigins = config.basemap.kind === "style" ? [new URL(config.basemap.url).origin] : [];
+  app.use(securityHeaders(config.publicBaseUrl, mapOrigins));
   // gzip: the client's JavaScript shrinks to about a third, and JSON answers compress well.
   app.use(compression());
   app.use("/api", api);

@@ -1,6 +1,7 @@
 import os from "node:os";
 import path from "node:path";
 import { z } from "zod";
+import type { PublicConfig } from "../shared/schemas/auth";
 
 /** The development secret. Fine on a laptop; production refuses to start with it. */
 export const DEFAULT_SESSION_SECRET = "rillmark-local-development-secret-change-me";
@@ -77,6 +78,10 @@ const envSchema = z.object({
   UPLOAD_LIMIT_RAINFALL_KB: count(1024),
   UPLOAD_WAIT_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
   JOB_QUEUE_SUFFIX: optionalText,
+  BASEMAP_STYLE_URL: optionalText.pipe(
+    z.url({ protocol: /^https?$/, message: "Use an http:// or https:// URL." }).optional(),
+  ),
+  BASEMAP_PMTILES_PATH: optionalText,
 });
 
 /** Every environment variable Rillmark reads (.env.example documents each one). */
@@ -113,6 +118,8 @@ export interface Config {
   sessionMaxAgeMs: number;
   storage: StorageConfig;
   uploads: UploadConfig;
+  /** What the map draws under project layers (demo basemap unless an admin configures one). */
+  basemap: BasemapConfig;
   /** Queue names get this suffix (tests: one per app, so apps sharing a database never swap jobs). */
   jobQueueSuffix: string;
 }
@@ -139,6 +146,16 @@ export interface UploadConfig {
   waitMs: number;
 }
 
+/**
+ * The map's basemap: the invented demo area's tiles (default), an admin's own style on their
+ * network, or a local PMTiles archive the app serves at BASEMAP_ARCHIVE_PATH with range requests.
+ */
+export type BasemapConfig =
+  { kind: "demo" } | { kind: "style"; url: string } | { kind: "pmtiles"; path: string };
+
+/** Where the app serves a configured PMTiles archive. */
+export const BASEMAP_ARCHIVE_PATH = "/api/basemap/archive.pmtiles";
+
 /** A config whose public address is known; what the HTTP app needs. */
 export type AppConfig = Config & { publicBaseUrl: string };
 
@@ -154,6 +171,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     throw new ConfigError(`Rillmark cannot start; fix these settings:\n${lines.join("\n")}`);
   }
   const e = parsed.data;
+  if (e.BASEMAP_STYLE_URL && e.BASEMAP_PMTILES_PATH) {
+    throw new ConfigError(
+      "Rillmark cannot start: set BASEMAP_STYLE_URL or BASEMAP_PMTILES_PATH, not both.",
+    );
+  }
   const config: Config = {
     nodeEnv: e.NODE_ENV,
     port: e.PORT,
@@ -202,6 +224,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       },
       waitMs: e.UPLOAD_WAIT_MS,
     },
+    basemap: e.BASEMAP_STYLE_URL
+      ? { kind: "style", url: e.BASEMAP_STYLE_URL }
+      : e.BASEMAP_PMTILES_PATH
+        ? { kind: "pmtiles", path: path.resolve(e.BASEMAP_PMTILES_PATH) }
+        : { kind: "demo" },
     jobQueueSuffix: e.JOB_QUEUE_SUFFIX ?? "",
   };
   assertSafeForProduction(config);
@@ -239,6 +266,12 @@ export function resolvePublicBaseUrl(config: Config, listeningPort: number): str
   return `http://${host}:${listeningPort}`;
 }
 
-export function publicConfig(config: Config): { signUpEnabled: boolean; outboxEnabled: boolean } {
-  return { signUpEnabled: config.signUpEnabled, outboxEnabled: config.outboxEnabled };
+export function publicConfig(config: Config): PublicConfig {
+  const { basemap } = config;
+  return {
+    signUpEnabled: config.signUpEnabled,
+    outboxEnabled: config.outboxEnabled,
+    // The archive's file path stays on the server; the client gets the URL that serves it.
+    basemap: basemap.kind === "pmtiles" ? { kind: "pmtiles", url: BASEMAP_ARCHIVE_PATH } : basemap,
+  };
 }

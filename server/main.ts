@@ -20,6 +20,7 @@ import { startWorkers } from "./jobs/workers";
 import { removeStaleUploads } from "./layers/upload-storage";
 import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, smtpTarget } from "./mail/mailer";
+import { seedBasemap } from "./seed/basemap";
 import { readyLine, seedDemo } from "./seed/demo";
 import { seedDemoGeodata } from "./seed/demo-geodata";
 import { startStorage } from "./storage";
@@ -84,6 +85,7 @@ export async function startRillmark(overrides: Partial<Config> = {}): Promise<Ru
     await removeStaleUploads(base.uploads.dir);
     await startWorkers({ db, store: storage.store, jobs, config: base });
     await seedDemo(db);
+    await seedBasemap(db);
     let fakeSmtp: FakeSmtp | undefined;
     if (!base.smtp.host) {
       fakeSmtp = await startFakeSmtp(db, base.fakeSmtpPort);

@@ -7,8 +7,9 @@ const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 /**
  * helmet with a self-only content security policy. The map (maplibre) runs its worker from a
  * blob: URL and draws tiles into blob:/data: images, so those two directives allow blob:.
+ * `mapOrigins` are hosts of a self-hosted basemap style the browser may fetch from.
  */
-export function securityHeaders(publicBaseUrl: string): RequestHandler {
+export function securityHeaders(publicBaseUrl: string, mapOrigins: string[] = []): RequestHandler {
   const https = publicBaseUrl.startsWith("https:");
   return helmet({
     contentSecurityPolicy: {
@@ -18,9 +19,9 @@ export function securityHeaders(publicBaseUrl: string): RequestHandler {
         scriptSrc: ["'self'"],
         scriptSrcAttr: ["'none'"],
         styleSrc: ["'self'"],
-        imgSrc: ["'self'", "data:", "blob:"],
+        imgSrc: ["'self'", "data:", "blob:", ...mapOrigins],
         fontSrc: ["'self'"],
-        connectSrc: ["'self'"],
+        connectSrc: ["'self'", ...mapOrigins],
         workerSrc: ["'self'", "blob:"],
         objectSrc: ["'none'"],
         baseUri: ["'self'"],

@@ -3,6 +3,7 @@ import "./extend-zod";
 import { OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { registerCorePaths } from "./paths-core";
 import { registerGeodataPaths } from "./paths-geodata";
+import { registerMapPaths } from "./paths-map";
 import { ApiDocs } from "./registry";
 
 let cached: ReturnType<OpenApiGeneratorV31["generateDocument"]> | undefined;
@@ -12,6 +13,7 @@ export function openApiDocument() {
   const docs = new ApiDocs();
   registerCorePaths(docs);
   registerGeodataPaths(docs);
+  registerMapPaths(docs);
   cached = new OpenApiGeneratorV31(docs.registry.definitions).generateDocument({
     openapi: "3.1.0",
     info: {

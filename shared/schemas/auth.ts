@@ -63,8 +63,17 @@ export const invitationPreviewSchema = z.object({
 });
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
+/** What the map draws under project layers: the demo area, an admin's style, or a PMTiles file. */
+export const basemapConfigSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("demo") }),
+  z.object({ kind: z.literal("style"), url: z.string() }),
+  z.object({ kind: z.literal("pmtiles"), url: z.string() }),
+]);
+export type BasemapConfigDto = z.infer<typeof basemapConfigSchema>;
+
 export const publicConfigSchema = z.object({
   signUpEnabled: z.boolean(),
   outboxEnabled: z.boolean(),
+  basemap: basemapConfigSchema,
 });
 export type PublicConfig = z.infer<typeof publicConfigSchema>;

@@ -159,6 +159,10 @@ describe("headers", () => {
   it("never lets API answers be cached", async () => {
     const res = await supertest(t.app).get("/api/config");
     expect(res.headers["cache-control"]).toBe("no-store");
-    expect(res.body).toEqual({ signUpEnabled: true, outboxEnabled: true });
+    expect(res.body).toEqual({
+      signUpEnabled: true,
+      outboxEnabled: true,
+      basemap: { kind: "demo" },
+    });
   });
 });

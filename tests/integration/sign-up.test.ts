@@ -117,7 +117,11 @@ describe("sign-up by e-mail confirmation", () => {
       expect(res.status).toBe(403);
       expect(res.body.error.code).toBe("signup_disabled");
       const config = await supertest(closed.app).get("/api/config");
-      expect(config.body).toEqual({ signUpEnabled: false, outboxEnabled: true });
+      expect(config.body).toEqual({
+        signUpEnabled: false,
+        outboxEnabled: true,
+        basemap: { kind: "demo" },
+      });
       expect(await mailsTo(closed.db, email)).toEqual([]);
     } finally {
       await closed.close();

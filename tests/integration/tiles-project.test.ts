@@ -1,0 +1,144 @@
+/**
+ * A project's vector tiles: the fixture case's cover, soil and subcatchment (tests/support/
+ * geodata-case.ts, invented shapes near 122.2° W, 38.4° N) read back with @mapbox/vector-tile.
+ */
+import { eq } from "drizzle-orm";
+import supertest from "supertest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { surfaceClasses } from "../../server/db/schema-geodata";
+import { COVER, SOILS } from "../fixtures/geo/scenario";
+import { createTeam, signIn, startTestApp, type Agent, type TestApp } from "../support/app";
+import { buildGeodataCase, COVER_CLASS_KEYS, type GeodataCase } from "../support/geodata-case";
+import { binary, decodeTile, layerFeatures, tileOf } from "../support/tiles";
+
+let t: TestApp;
+let c: GeodataCase;
+// This z 14 tile holds the whole fixture (about 400 m square); a z 15 tile would cut it.
+const AT = tileOf(-122.198, 38.402, 14);
+const url = (projectId: string, at = AT) =>
+  `/api/projects/${projectId}/tiles/${at.z}/${at.x}/${at.y}.mvt`;
+
+const getTile = (agent: Agent, path: string) => agent.get(path).buffer(true).parse(binary);
+
+beforeAll(async () => {
+  t = await startTestApp();
+  c = await buildGeodataCase(t, "tiles-project");
+});
+afterAll(async () => {
+  await t.close();
+});
+
+describe("project vector tiles", () => {
+  it("answers an MVT with every cover polygon, its class key, name and colour", async () => {
+    const res = await getTile(c.engineer, url(c.projectId));
+    expect(res.status).toBe(200);
+    expect(res.headers["content-type"]).toContain("application/vnd.mapbox-vector-tile");
+    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
+    expect(cover).toHaveLength(COVER.length);
+    const rows = await t.db
+      .select()
+      .from(surfaceClasses)
+      .where(eq(surfaceClasses.teamId, c.team.id));
+    for (const fixture of COVER) {
+      const key = COVER_CLASS_KEYS[fixture.properties.NAME];
+      const cls = rows.find((r) => r.key === key);
+      const hit = cover.find((f) => f.properties.classKey === key);
+      expect(hit, `cover ${fixture.properties.NAME}`).toBeDefined();
+      expect(hit?.properties).toMatchObject({
+        layerId: c.coverLayerId,
+        classId: cls?.id,
+        className: cls?.name,
+        colour: (cls?.values as { colour: string }).colour,
+      });
+      expect(hit?.properties.featureId).toBe(hit?.id);
+    }
+  });
+
+  it("puts cover vertices where the fixture has them (to a tile unit, under 1e-5°)", async () => {
+    const res = await getTile(c.engineer, url(c.projectId));
+    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
+    const range = cover.find((f) => f.properties.classKey === COVER_CLASS_KEYS.range);
+    const fixture = COVER.find((f) => f.properties.NAME === "range");
+    if (range?.geojson.geometry.type !== "Polygon" || !fixture) throw new Error("no range polygon");
+    const got = range.geojson.geometry.coordinates[0] ?? [];
+    for (const [lon = 0, lat = 0] of fixture.geometry.coordinates[0] ?? []) {
+      const near = got.some(
+        ([x = 0, y = 0]) => Math.abs(x - lon) < 1e-5 && Math.abs(y - lat) < 1e-5,
+      );
+      expect(near, `vertex ${lon}, ${lat}`).toBe(true);
+    }
+  });
+
+  it("carries soils with their HSG and the subcatchment with its id and name", async () => {
+    const tile = decodeTile((await getTile(c.engineer, url(c.projectId))).body as Buffer);
+    const soil = layerFeatures(tile, "soil", AT);
+    expect(soil.map((f) => f.properties.hsg).sort()).toEqual(
+      SOILS.map((s) => s.properties.HSG).sort(),
+    );
+    expect(soil.every((f) => f.properties.layerId === c.soilLayerId)).toBe(true);
+    const subs = layerFeatures(tile, "subcatchments", AT);
+    expect(subs.map((f) => f.properties)).toEqual([
+      { id: c.subcatchmentId, name: "Invented area A", scenario: "existing" },
+    ]);
+  });
+
+  it("leaves an unmapped cover polygon's class empty", async () => {
+    const fresh = await buildGeodataCase(t, "tiles-unmapped");
+    // Clear the mapping of every cover feature of the fresh project.
+    await t.pool.query("update layer_features set surface_class_id = null where layer_id = $1", [
+      fresh.coverLayerId,
+    ]);
+    const res = await getTile(fresh.engineer, url(fresh.projectId));
+    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
+    expect(cover).toHaveLength(COVER.length);
+    for (const f of cover) {
+      expect(f.properties.classKey).toBeUndefined();
+      expect(f.properties.colour).toBeUndefined();
+    }
+  });
+
+  it("answers 204 for a tile with nothing of the project in it", async () => {
+    const res = await c.engineer.get(url(c.projectId, tileOf(10, 50, 14)));
+    expect(res.status).toBe(204);
+  });
+
+  it("answers 304 to the same ETag and a new ETag once a subcatchment is added", async () => {
+    const first = await getTile(c.engineer, url(c.projectId));
+    const etag = first.headers.etag as string;
+    expect(etag).toMatch(/^"/);
+    const again = await c.engineer.get(url(c.projectId)).set("If-None-Match", etag);
+    expect(again.status).toBe(304);
+    const added = await c.engineer.post(`/api/projects/${c.projectId}/subcatchments`).send({
+      name: "Invented area B",
+      boundary: COVER[3]?.geometry,
+    });
+    expect(added.status).toBe(201);
+    const changed = await getTile(c.engineer, url(c.projectId)).set("If-None-Match", etag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(etag);
+    const names = layerFeatures(decodeTile(changed.body as Buffer), "subcatchments", AT).map(
+      (f) => f.properties.name,
+    );
+    expect(names.sort()).toEqual(["Invented area A", "Invented area B"]);
+  });
+
+  it("lets a viewer read tiles, and answers 404 to another team and 401 to nobody", async () => {
+    const viewer = t.agent();
+    await signIn(viewer, c.team.members.viewer);
+    expect((await viewer.get(url(c.projectId))).status).toBe(200);
+    const other = await createTeam(t.db, "tiles-other");
+    const outsider = t.agent();
+    await signIn(outsider, other.members.owner);
+    expect((await outsider.get(url(c.projectId))).status).toBe(404);
+    expect((await supertest(t.app).get(url(c.projectId))).status).toBe(401);
+  });
+
+  it("refuses a tile address outside the zoom's grid, naming the coordinate", async () => {
+    const bad = await c.engineer.get(`/api/projects/${c.projectId}/tiles/3/8/0.mvt`);
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.fields.x).toMatch(/below 8/);
+    const deep = await c.engineer.get(`/api/projects/${c.projectId}/tiles/25/0/0.mvt`);
+    expect(deep.status).toBe(422);
+    expect(deep.body.error.fields.z).toMatch(/0 to 24/);
+  });
+});
