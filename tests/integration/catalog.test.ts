@@ -4,8 +4,11 @@ import { surfaceClasses } from "../../server/db/schema-geodata";
 import { catalog } from "../../shared/hydrology";
 import {
   createTeam,
+  latestMailTo,
   signIn,
   startTestApp,
+  tokenFromMail,
+  uniqueEmail,
   type Agent,
   type TestApp,
   type TestTeam,
@@ -159,5 +162,21 @@ describe("Surface catalog", () => {
       });
     expect(res.status).toBe(422);
     expect(res.body.error.fields["values.runoffC.design"]).toMatch(/within its range/);
+  });
+
+  it("is seeded in the same transaction that makes a team at sign-up", async () => {
+    const email = uniqueEmail("catalog-signup");
+    await t.agent().post("/api/auth/sign-up").send({
+      email,
+      name: "Rosa Delgado",
+      password: "a-long-new-password",
+      teamName: "Delgado Drainage",
+    });
+    const token = tokenFromMail(await latestMailTo(t.db, email), "/confirm-email");
+    const confirmed = await t.agent().post("/api/auth/confirm-email").send({ token });
+    expect(confirmed.status).toBe(201);
+    const teamId = confirmed.body.memberships[0].teamId as string;
+    const rows = await t.db.select().from(surfaceClasses).where(eq(surfaceClasses.teamId, teamId));
+    expect(rows).toHaveLength(catalog.SURFACE_CLASSES.length);
   });
 });
