@@ -37,9 +37,12 @@ interface MappingRowsProps {
 /** One row per distinct value; the choice starts at the current mapping, else the suggestion. */
 export function MappingRows({ layer, data, classes, mayEdit }: MappingRowsProps) {
   const save = useSaveMapping(layer);
+  // Suggestions fill in a first mapping only; once the field is mapped, a value left unmapped
+  // was left so on purpose.
+  const suggest = mayEdit && layer.mappingField !== data.field;
   const [choices, setChoices] = useState<Record<string, string>>(() =>
     Object.fromEntries(
-      data.values.map((v) => [v.value, v.mapped ?? (mayEdit ? (v.suggestion?.target ?? "") : "")]),
+      data.values.map((v) => [v.value, v.mapped ?? (suggest ? (v.suggestion?.target ?? "") : "")]),
     ),
   );
   const byId = new Map(classes.map((c) => [c.id, c]));
