@@ -74,6 +74,12 @@ const signedInRoutes: RouteObject[] = [
         lazy: async () => ({ Component: (await import("./ProjectOverview")).ProjectOverview }),
       },
       {
+        path: "map",
+        lazy: async () => ({
+          Component: (await import("../features/map-desk/components/MapDeskPage")).MapDeskPage,
+        }),
+      },
+      {
         path: "layers",
         lazy: async () => ({
           Component: (await import("../features/layers/components/LayersPage")).LayersPage,

@@ -24,7 +24,7 @@ export function unitLabels(units: Project["units"]) {
  * Whether the Map desk page is part of this build. Its feature adds the route; until then the
  * project pages leave out links to it rather than point at a page that is not there.
  */
-export const MAP_DESK_AVAILABLE = false;
+export const MAP_DESK_AVAILABLE = true;
 
 export function mapDeskPath(projectId: string, subcatchmentId?: string): string {
   const base = `/projects/${encodeURIComponent(projectId)}/map`;

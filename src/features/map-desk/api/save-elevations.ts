@@ -1,0 +1,36 @@
+import {
+  mutationOptions,
+  useMutation,
+  useQueryClient,
+  type QueryClient,
+} from "@tanstack/react-query";
+import { subcatchmentSchema, type Subcatchment } from "../../../../shared/schemas/subcatchments";
+import { apiPath, apiSend } from "../../../lib/api";
+import { queryKeys } from "../../../lib/query-keys";
+
+/** Surveyed points, station and elevation in the project's length unit. */
+export interface SurveyEntry {
+  station: number;
+  elevation: number;
+  note: string;
+}
+
+/** Replaces the whole list of surveyed points (the API keeps one list per subcatchment). */
+export function saveElevations(id: string, entries: readonly SurveyEntry[]): Promise<Subcatchment> {
+  return apiSend("PUT", apiPath`/api/subcatchments/${id}/elevations`, subcatchmentSchema, {
+    entries,
+  });
+}
+
+export const saveElevationsMutationOptions = (queryClient: QueryClient, id: string) =>
+  mutationOptions({
+    mutationKey: [...queryKeys.subcatchment(id), "elevations"],
+    mutationFn: (entries: readonly SurveyEntry[]) => saveElevations(id, entries),
+    onSuccess: (saved) => {
+      queryClient.setQueryData(queryKeys.subcatchment(id), saved);
+    },
+  });
+
+export function useSaveElevations(id: string) {
+  return useMutation(saveElevationsMutationOptions(useQueryClient(), id));
+}

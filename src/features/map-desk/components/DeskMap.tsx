@@ -1,0 +1,109 @@
+import type { Map as MapLibreMap, MapMouseEvent } from "maplibre-gl";
+import { useEffect, useRef, useState } from "react";
+import type { BasemapConfig } from "../api/get-map-config";
+import { createDeskMap } from "../map/create-map";
+import { SEGMENT_LAYER } from "../map/desk-overlays";
+
+interface DeskMapProps {
+  basemap: BasemapConfig;
+  projectId: string;
+  terrainLayerId: string | undefined;
+  bounds: [number, number, number, number] | null;
+  lengthUnit: "ft" | "m";
+  hovered: number | null;
+  onHover: (index: number | null) => void;
+  onReady: (map: MapLibreMap | null) => void;
+}
+
+/** The map itself: made once per project and terrain layer, handed up when its style loads. */
+export function DeskMap(props: DeskMapProps) {
+  const { basemap, projectId, terrainLayerId, lengthUnit, onReady, onHover } = props;
+  const container = useRef<HTMLDivElement>(null);
+  const mapRef = useRef<MapLibreMap | null>(null);
+  const boundsRef = useRef(props.bounds);
+  const [failure, setFailure] = useState<string | null>(null);
+  const [pointer, setPointer] = useState<{ lng: number; lat: number } | null>(null);
+
+  useEffect(() => {
+    const element = container.current;
+    if (!element) return;
+    let cancelled = false;
+    let made: MapLibreMap | null = null;
+    createDeskMap({
+      container: element,
+      basemap,
+      projectId,
+      terrainLayerId,
+      bounds: boundsRef.current,
+      lengthUnit,
+    })
+      .then((map) => {
+        if (cancelled) {
+          map.remove();
+          return;
+        }
+        made = map;
+        mapRef.current = map;
+        map.on("mousemove", (e) => setPointer(e.lngLat));
+        map.on("mouseout", () => setPointer(null));
+        map.on("mousemove", SEGMENT_LAYER, (e: MapMouseEvent & { features?: unknown[] }) => {
+          const f = (e.features as { properties?: { index?: number } }[] | undefined)?.[0];
+          onHover(typeof f?.properties?.index === "number" ? f.properties.index : null);
+        });
+        map.on("mouseleave", SEGMENT_LAYER, () => onHover(null));
+        map.once("load", () => {
+          if (!cancelled) onReady(map);
+        });
+      })
+      .catch((error: unknown) => {
+        setFailure(error instanceof Error ? error.message : "The map could not start.");
+      });
+    return () => {
+      cancelled = true;
+      onReady(null);
+      made?.remove();
+      mapRef.current = null;
+    };
+  }, [basemap, projectId, terrainLayerId, lengthUnit, onReady, onHover]);
+
+  // Highlight the hovered segment (from the sheet or the map) through feature state.
+  const hovered = props.hovered;
+  useEffect(() => {
+    const map = mapRef.current;
+    if (!map?.getSource("desk-segments") || hovered === null) return;
+    map.setFeatureState({ source: "desk-segments", id: hovered }, { hover: true });
+    return () => {
+      if (map.getSource("desk-segments")) {
+        map.setFeatureState({ source: "desk-segments", id: hovered }, { hover: false });
+      }
+    };
+  }, [hovered]);
+
+  return (
+    <div className="relative h-full w-full">
+      <div
+        ref={container}
+        className="absolute inset-0"
+        role="region"
+        aria-label="Map of the project"
+        data-testid="desk-map"
+      />
+      {failure && (
+        <p
+          role="alert"
+          className="absolute inset-x-4 top-4 rounded-md bg-brick-50 p-3 text-sm text-brick-700"
+        >
+          {failure}
+        </p>
+      )}
+      <p
+        aria-live="off"
+        className="pointer-events-none absolute right-2 bottom-2 rounded bg-white/85 px-2 py-0.5 font-mono text-xs text-ink-700"
+      >
+        {pointer
+          ? `${pointer.lat.toFixed(6)}°, ${pointer.lng.toFixed(6)}°`
+          : "Lat, lon under the pointer"}
+      </p>
+    </div>
+  );
+}

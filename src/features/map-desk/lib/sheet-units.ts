@@ -1,0 +1,81 @@
+/**
+ * The travel-time sheet shown in the unit system the engineer picks. The server answers in the
+ * project's units; lengths, elevations, velocities, areas and flows are converted here through
+ * shared/hydrology/units.ts only. Slopes, times, n, CN and C have no unit to convert.
+ */
+import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
+import {
+  UNIT_LABELS,
+  acFromHa,
+  cfsFromM3PerS,
+  ftFromM,
+  haFromAc,
+  inFromMm,
+  m3PerSFromCfs,
+  mFromFt,
+  mmFromIn,
+  type UnitSystem,
+} from "../../../../shared/hydrology/units";
+
+interface Converters {
+  length(v: number): number;
+  area(v: number): number;
+  flow(v: number): number;
+  depth(v: number): number;
+}
+
+const IDENTITY: Converters = {
+  length: (v) => v,
+  area: (v) => v,
+  flow: (v) => v,
+  depth: (v) => v,
+};
+
+function converters(from: UnitSystem, to: UnitSystem): Converters {
+  if (from === to) return IDENTITY;
+  return to === "si"
+    ? { length: mFromFt, area: haFromAc, flow: m3PerSFromCfs, depth: mmFromIn }
+    : { length: ftFromM, area: acFromHa, flow: cfsFromM3PerS, depth: inFromMm };
+}
+
+const maybe = (v: number | null, f: (x: number) => number) => (v === null ? null : f(v));
+
+export function sheetInUnits(sheet: TravelTimeSheet, to: UnitSystem): TravelTimeSheet {
+  if (sheet.units === to) return sheet;
+  const c = converters(sheet.units, to);
+  const len = (v: number) => c.length(v);
+  return {
+    ...sheet,
+    units: to,
+    unitLabels: { ...sheet.unitLabels, ...UNIT_LABELS[to] },
+    totalLength: len(sheet.totalLength),
+    breaks: {
+      ...sheet.breaks,
+      sheetEnd: maybe(sheet.breaks.sheetEnd, len),
+      channelStart: maybe(sheet.breaks.channelStart, len),
+    },
+    segments: sheet.segments.map((s) => ({
+      ...s,
+      stationFrom: len(s.stationFrom),
+      stationTo: len(s.stationTo),
+      length: len(s.length),
+      // k is a velocity (V = k·√s), so it converts as a length per second.
+      k: maybe(s.k, len),
+      elevationUp: maybe(s.elevationUp, len),
+      elevationDown: maybe(s.elevationDown, len),
+      velocity: maybe(s.velocity, len),
+    })),
+    peakFlow: sheet.peakFlow && {
+      ...sheet.peakFlow,
+      value: c.flow(sheet.peakFlow.value),
+      unit: UNIT_LABELS[to].flow,
+      area: c.area(sheet.peakFlow.area),
+      intensity: c.depth(sheet.peakFlow.intensity),
+    },
+    figures: { ...sheet.figures, area: maybe(sheet.figures.area, c.area) },
+    profile: sheet.profile.map((p) => ({
+      station: len(p.station),
+      elevation: maybe(p.elevation, len),
+    })),
+  };
+}

@@ -1,0 +1,86 @@
+/**
+ * Builds the Map desk's maplibre map: the basemap (demo tiles, a configured style or a PMTiles
+ * archive), the project's layers and the desk overlays, with navigation and a scale bar in the
+ * project's length unit. maplibre-gl 6 is ESM; its worker ships with the app (bundled URL).
+ */
+import * as maplibregl from "maplibre-gl";
+import workerUrl from "maplibre-gl/dist/maplibre-gl-worker.mjs?url";
+import "maplibre-gl/dist/maplibre-gl.css";
+import { Protocol } from "pmtiles";
+import type { BasemapConfig } from "../api/get-map-config";
+import { basemapLayers, basemapStyle, demoBasemapTiles } from "./basemap-style";
+import { addOverlays } from "./desk-overlays";
+import { projectLayers, projectSources } from "./project-layers";
+
+maplibregl.setWorkerUrl(workerUrl);
+
+let pmtilesReady = false;
+function ensurePmtiles() {
+  if (pmtilesReady) return;
+  maplibregl.addProtocol("pmtiles", new Protocol().tile);
+  pmtilesReady = true;
+}
+
+export interface CreateMapOptions {
+  container: HTMLElement;
+  basemap: BasemapConfig;
+  projectId: string;
+  terrainLayerId: string | undefined;
+  bounds: [number, number, number, number] | null;
+  lengthUnit: "ft" | "m";
+}
+
+async function baseStyle(basemap: BasemapConfig, origin: string) {
+  if (basemap.kind === "style") {
+    const response = await fetch(basemap.url, { credentials: "same-origin" });
+    if (!response.ok) throw new Error(`The configured map style answered ${response.status}.`);
+    return (await response.json()) as maplibregl.StyleSpecification;
+  }
+  if (basemap.kind === "pmtiles") {
+    ensurePmtiles();
+    const url = new URL(basemap.url, origin).href;
+    return basemapStyle({ url: `pmtiles://${url}` });
+  }
+  return basemapStyle(demoBasemapTiles(origin));
+}
+
+export async function createDeskMap(options: CreateMapOptions): Promise<maplibregl.Map> {
+  const origin = window.location.origin;
+  const style = await baseStyle(options.basemap, origin);
+  const sources = projectSources(origin, options.projectId, options.terrainLayerId);
+  // The project's layers sit under the basemap's labels (the first symbol layer).
+  const firstLabel = style.layers.findIndex((l) => l.type === "symbol");
+  const at = firstLabel < 0 ? style.layers.length : firstLabel;
+  const layers = [
+    ...style.layers.slice(0, at),
+    ...projectLayers(Boolean(options.terrainLayerId)),
+    ...style.layers.slice(at),
+  ];
+  const map = new maplibregl.Map({
+    container: options.container,
+    style: { ...style, sources: { ...style.sources, ...sources }, layers },
+    bounds: options.bounds ?? undefined,
+    fitBoundsOptions: { padding: 40 },
+    center: options.bounds ? undefined : [0, 0],
+    zoom: options.bounds ? undefined : 2,
+    attributionControl: { compact: true },
+    dragRotate: false,
+    pitchWithRotate: false,
+  });
+  map.touchZoomRotate.disableRotation();
+  map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
+  map.addControl(
+    new maplibregl.ScaleControl({ unit: options.lengthUnit === "ft" ? "imperial" : "metric" }),
+    "bottom-left",
+  );
+  map.on("load", () => addOverlays(map));
+  return map;
+}
+
+/** Every basemap layer id (for the basemap toggle), whatever the style names them. */
+export function basemapLayerIds(map: maplibregl.Map): string[] {
+  const desk = new Set(basemapLayers("basemap").map((l) => l.id));
+  return (map.getStyle().layers ?? [])
+    .filter((l) => desk.has(l.id) || ("source" in l && l.source === "basemap"))
+    .map((l) => l.id);
+}
