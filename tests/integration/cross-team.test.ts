@@ -9,6 +9,7 @@ import {
   type RouteFixture,
 } from "../support/route-table";
 import { GEODATA_ROUTE_CASES } from "../support/route-table-geodata";
+import { MAP_ROUTE_CASES } from "../support/route-table-map";
 
 let t: TestApp;
 let fixture: RouteFixture;
@@ -56,6 +57,9 @@ describe("another team's user", () => {
         "GET /api/layers/:layerId/fields/:field/values",
         "PUT /api/layers/:layerId/mapping",
         ...GEODATA_ROUTE_CASES.map((c) => `${c.method.toUpperCase()} ${c.route}`),
+        ...MAP_ROUTE_CASES.filter((c) => c.teamScoped).map(
+          (c) => `${c.method.toUpperCase()} ${c.route}`,
+        ),
       ].sort(),
     );
   });

@@ -16,6 +16,7 @@ import {
   type TestTeam,
 } from "./app";
 import { GEODATA_ROUTE_CASES } from "./route-table-geodata";
+import { MAP_ROUTE_CASES } from "./route-table-map";
 
 /** The objects a route case acts on: one team (one member per role) with one project. */
 export interface RouteFixture {
@@ -346,6 +347,7 @@ export const ROUTE_CASES: RouteCase[] = [
     expected: table(200, 200, 403, 200, 403, 403),
   },
   ...GEODATA_ROUTE_CASES,
+  ...MAP_ROUTE_CASES,
 ];
 
 /** Sends a route case's request: JSON body, multipart upload, or neither. */
