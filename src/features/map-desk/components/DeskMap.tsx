@@ -46,6 +46,8 @@ export function DeskMap(props: DeskMapProps) {
         mapRef.current = map;
         map.on("mousemove", (e) => setPointer(e.lngLat));
         map.on("mouseout", () => setPointer(null));
+        // Tests and the bench wait for this: the first moment everything asked for is drawn.
+        map.once("idle", () => element.setAttribute("data-idle", "true"));
         map.on("mousemove", SEGMENT_LAYER, (e: MapMouseEvent & { features?: unknown[] }) => {
           const f = (e.features as { properties?: { index?: number } }[] | undefined)?.[0];
           onHover(typeof f?.properties?.index === "number" ? f.properties.index : null);
@@ -83,7 +85,8 @@ export function DeskMap(props: DeskMapProps) {
     <div className="relative h-full w-full">
       <div
         ref={container}
-        className="absolute inset-0"
+        // Inline, because maplibre's own stylesheet sets the map container to position: relative.
+        style={{ position: "absolute", inset: 0 }}
         role="region"
         aria-label="Map of the project"
         data-testid="desk-map"

@@ -12,6 +12,7 @@ import type { BasemapConfig } from "../api/get-map-config";
 import { useSheet } from "../api/get-sheet";
 import { subcatchmentQueryOptions } from "../api/get-subcatchment";
 import { useRunCompute } from "../api/run-compute";
+import { initialBounds } from "../lib/initial-bounds";
 import { usePathAutosave } from "../lib/use-path-autosave";
 import { useDeskDraw } from "../lib/use-desk-draw";
 import { useDeskEdits } from "../lib/use-desk-edits";
@@ -95,7 +96,14 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
   });
 
   const { draw, history } = useDeskDraw(map, canEdit, subcatchment, autosave.draft !== null, {
-    onPath: autosave.edit,
+    onPath: (coords, settled) => {
+      autosave.edit(coords, settled);
+      // A finished trace hands the map back to panning, so the next click starts nothing.
+      if (settled && tool === "trace") {
+        setTool("pan");
+        draw?.setTool("pan");
+      }
+    },
     onArea: (ring) => void edits.setArea(ring),
     onOutlet: (p) => void edits.setOutlet(p),
     onMeasure: setMeasure,
@@ -116,7 +124,8 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
     void edits.moveBreaks({ [kind]: Math.round(station * 100) / 100 });
   };
   const terrain = newestReady(layers, "terrain");
-  const bounds = live.box;
+  // The first view: the subcatchment (boundary and path), else every layer's extent.
+  const [bounds] = useState(() => initialBounds(subcatchment, layers));
 
   return (
     <div className="grid h-[calc(100vh-10.5rem)] min-h-[36rem] grid-cols-[minmax(0,1fr)_minmax(0,1.15fr)]">

@@ -30,7 +30,7 @@ export function MethodTotals({ sheet }: { sheet: TravelTimeSheet }) {
               data-method={m.id}
               className={m.id === governing ? "bg-rill-50 font-semibold" : ""}
             >
-              <th scope="row" className="py-1 pr-2 text-left font-medium">
+              <th scope="row" data-label={m.label} className="py-1 pr-2 text-left font-medium">
                 {m.label}
                 {m.kind === "check" && <span className="ml-1 text-ink-500">(check)</span>}
                 {m.id === governing && (
