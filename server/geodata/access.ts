@@ -33,10 +33,19 @@ export function loadViaProject(
     const id = validateParam(idSchema, req.params[param], what);
     const projectId = await owner(id);
     if (projectId === undefined) throw notFound(what);
-    const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-    if (!project) throw notFound(what);
-    const access = await teamAccess(db, currentUser(req).id, project.teamId);
-    if (!access) throw notFound(what);
+    // The project and the caller's membership of its team in one query.
+    const [found] = await db
+      .select({ project: projects, teamName: teams.name, role: memberships.role })
+      .from(projects)
+      .innerJoin(teams, eq(teams.id, projects.teamId))
+      .innerJoin(
+        memberships,
+        and(eq(memberships.teamId, projects.teamId), eq(memberships.userId, currentUser(req).id)),
+      )
+      .where(eq(projects.id, projectId));
+    if (!found) throw notFound(what);
+    const { project } = found;
+    const access = { teamId: project.teamId, teamName: found.teamName, role: found.role };
     req.rillmark = { ...req.rillmark, team: access, project };
     next();
   };

@@ -39,8 +39,38 @@ const LAND_SLOPE_POINTS = 2500;
 
 const pct = (part: number, whole: number) => `${((100 * part) / whole).toFixed(1)} %`;
 
-/** Cover × soil pieces inside the boundary, area per (class, HSG); soil missing → hsg null. */
+type AreaRow = {
+  kind: "cover-soil" | "cover";
+  surface_class_id: string | null;
+  hsg: string | null;
+  area_m2: number;
+};
+
+/**
+ * The intersection areas change only when the boundary or a cover or soil layer (its features
+ * or its mapping) changes, and they are the slow part of a compute (GEOS intersections of
+ * detailed polygons). They are kept per process under a key of exactly those inputs; the CN and
+ * C are weighted afresh each time, so catalog edits apply at once.
+ */
+const AREA_CACHE = new Map<string, AreaRow[]>();
+const AREA_CACHE_SIZE = 200;
+
+async function areaKey(db: Db, projectId: string, subcatchmentId: string): Promise<string> {
+  const result = await db.execute<{ b: string | null; l: string | null }>(sql`
+    select md5(ST_AsEWKB(boundary)::text) as b,
+      (select string_agg(l.id::text || '@' || l.updated_at::text, ',' order by l.id)
+       from layers l
+       where l.project_id = ${projectId} and l.kind in ('cover', 'soil') and l.status = 'ready') as l
+    from subcatchments where id = ${subcatchmentId}`);
+  const row = result.rows[0];
+  return `${subcatchmentId}|${row?.b ?? ""}|${row?.l ?? ""}`;
+}
+
+/** Cover × soil pieces inside the boundary, area per (class, HSG); plus cover alone. */
 async function coverSoilAreas(db: Db, projectId: string, subcatchmentId: string) {
+  const key = await areaKey(db, projectId, subcatchmentId);
+  const cached = AREA_CACHE.get(key);
+  if (cached) return cached;
   const result = await db.execute<WeightRow>(sql`
     with b as (select boundary as g from subcatchments where id = ${subcatchmentId}),
     c as (
@@ -59,7 +89,13 @@ async function coverSoilAreas(db: Db, projectId: string, subcatchmentId: string)
     group by 2, 3
     union all
     select 'cover', c.surface_class_id, null, sum(ST_Area(c.g::geography)) from c group by 2`);
-  return result.rows.map((r) => ({ ...r, area_m2: Number(r.area_m2) }));
+  const rows = result.rows.map((r): AreaRow => ({ ...r, area_m2: Number(r.area_m2) }));
+  if (AREA_CACHE.size >= AREA_CACHE_SIZE) {
+    const oldest = AREA_CACHE.keys().next().value;
+    if (oldest !== undefined) AREA_CACHE.delete(oldest);
+  }
+  AREA_CACHE.set(key, rows);
+  return rows;
 }
 
 export async function subcatchmentFigures(
