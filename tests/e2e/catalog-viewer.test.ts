@@ -53,8 +53,14 @@ describe("Surface catalog and the viewer's read-only pages", () => {
       "—",
       "85",
     ]);
-    await row.getByRole("button", { name: `Sources of ${name}` }).click();
-    await page.getByText("Team criteria, invented for a test").first().waitFor();
+    const sourcesButton = row.getByRole("button", { name: `Sources of ${name}` });
+    await sourcesButton.click();
+    const sourcesId = await sourcesButton.getAttribute("aria-controls");
+    await page
+      .locator(`[id="${sourcesId}"]`)
+      .getByText("Team criteria, invented for a test")
+      .first()
+      .waitFor();
 
     await row.getByRole("button", { name: `Edit ${name}` }).click();
     const edit = page.getByRole("dialog", { name: `Edit “${name}”` });
