@@ -4,6 +4,7 @@
  * intersection inside the boundary (PostGIS ST_Intersection, areas on the geography type), and
  * the average land slope from terrain samples on a grid over the boundary.
  */
+import { createHash } from "node:crypto";
 import { sql } from "drizzle-orm";
 import type { Geometry } from "geojson";
 import {
@@ -54,6 +55,8 @@ type AreaRow = {
  */
 const AREA_CACHE = new Map<string, AreaRow[]>();
 const AREA_CACHE_SIZE = 200;
+/** Average land slope by terrain file and boundary (both fixed once stored). */
+const LAND_SLOPE_CACHE = new Map<string, number>();
 
 async function areaKey(db: Db, projectId: string, subcatchmentId: string): Promise<string> {
   const result = await db.execute<{ b: string | null; l: string | null }>(sql`
@@ -108,6 +111,8 @@ export async function subcatchmentFigures(
     classes: ReadonlyMap<string, SurfaceParams>;
     dualHsg: "drained" | "undrained";
     terrain: TerrainSampler | null;
+    /** Identifies the terrain file (its object key), so the land slope can be kept. */
+    terrainKey: string | null;
   },
 ): Promise<Figures> {
   const notes: string[] = [];
@@ -166,7 +171,17 @@ export async function subcatchmentFigures(
       `CN is weighted over ${pct(cnArea, areaM2)} of the area (the rest has no mapped cover and soil with a CN).`,
     );
   }
-  const avgSlopePercent = await landSlope(parts[0], args.terrain, notes);
+  const slopeKey = `${args.terrainKey ?? ""}|${createHash("sha256")
+    .update(JSON.stringify(parts[0] ?? []))
+    .digest("hex")}`;
+  let avgSlopePercent: number | null = LAND_SLOPE_CACHE.get(slopeKey) ?? null;
+  if (avgSlopePercent === null) {
+    avgSlopePercent = await landSlope(parts[0], args.terrain, notes);
+    if (args.terrainKey !== null && avgSlopePercent !== null) {
+      if (LAND_SLOPE_CACHE.size >= AREA_CACHE_SIZE) LAND_SLOPE_CACHE.clear();
+      LAND_SLOPE_CACHE.set(slopeKey, avgSlopePercent);
+    }
+  }
   return {
     area,
     areaM2,

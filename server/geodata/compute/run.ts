@@ -54,6 +54,7 @@ export async function computeSheet(
       classes: data.classes,
       dualHsg: data.rules.dualHsg,
       terrain,
+      terrainKey: data.terrain?.objectKey ?? null,
     });
     const [figures, computedProfile] = await Promise.all([
       figuresPending,
