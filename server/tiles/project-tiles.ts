@@ -6,13 +6,14 @@
  *
  * Source-layers (the map desk's contract):
  *   cover          featureId, layerId, classId, classKey, className, colour (null class: unmapped)
- *   soil           featureId, layerId, hsg
+ *                  from zoom POLYGON_LAYERS_MIN_ZOOM up
+ *   soil           featureId, layerId, hsg (from the same zoom)
  *   channel        featureId, layerId
  *   boundary       featureId, layerId        (layers of kind "boundary")
  *   subcatchments  id, name, scenario        (their boundaries)
  * Vector features of layers carry their row id as the MVT feature id (for hover state).
  */
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { Db } from "../db/client";
 import type { TileCoords } from "./coords";
 
@@ -23,16 +24,24 @@ const EXTENT = 4096;
 const BUFFER = 64;
 
 /**
- * Below this zoom, polygons and lines whose bounding box is under a quarter of a tile pixel are
- * left out before they are reprojected: they would snap to nothing anyway, and skipping them
- * keeps a 100,000-polygon cover layer fast at the zooms that show the whole site.
+ * Cover and soil polygons are served from this zoom up (a view about 5 km wide at 1280 px). A
+ * site's cover can hold 100,000 digitized polygons; below this zoom one tile would carry tens of
+ * thousands of them, megabytes that take a PostGIS core hundreds of milliseconds to cut. The
+ * map shows those layers from here and says so below it (docs/map-tiles.md).
  */
-const DETAIL_ZOOM = 16;
+export const POLYGON_LAYERS_MIN_ZOOM = 15;
 
-export async function projectTile(db: Db, projectId: string, t: TileCoords): Promise<Uint8Array> {
+/**
+ * Below this zoom, features whose bounding box is under a quarter of a tile pixel are left out
+ * before they are reprojected: they would snap to nothing anyway.
+ */
+const DETAIL_ZOOM = 17;
+
+/** The one query that builds a tile (exported so the bench can EXPLAIN it). */
+export function projectTileQuery(projectId: string, t: TileCoords): SQL {
   // Degrees per tile pixel (256 px tiles) at this zoom; the size filter compares with a quarter.
   const minSizeDeg = t.z >= DETAIL_ZOOM ? 0 : 360 / 2 ** t.z / 256 / 4;
-  const result = await db.execute<{ tile: Buffer | null }>(sql`
+  return sql`
     with bounds as (
       select ST_TileEnvelope(${t.z}::int, ${t.x}::int, ${t.y}::int) as env,
              ST_Transform(
@@ -42,19 +51,25 @@ export async function projectTile(db: Db, projectId: string, t: TileCoords): Pro
     project_layers as (
       select id, kind from layers
       where project_id = ${projectId}::uuid and status = 'ready'
-        and kind in ('cover', 'soil', 'channel', 'boundary')
+        and (kind in ('channel', 'boundary')
+             or (kind in ('cover', 'soil') and ${t.z}::int >= ${POLYGON_LAYERS_MIN_ZOOM}::int))
     ),
     features as (
+      -- Per layer (a lateral join): a layer left out at this zoom is never scanned, and each
+      -- layer's features are found through the GiST index on their geometry.
       select f.id, f.layer_id, l.kind, f.surface_class_id, f.hsg,
              ST_AsMVTGeom(ST_Transform(f.geom, 3857), b.env, ${EXTENT}, ${BUFFER}, true) as geom
-      from layer_features f
-      join project_layers l on l.id = f.layer_id
+      from project_layers l
       cross join bounds b
-      where f.geom && b.env4326
-        and (${minSizeDeg}::float8 = 0
-             or ST_GeometryType(f.geom) in ('ST_Point', 'ST_MultiPoint')
-             or greatest(ST_XMax(f.geom) - ST_XMin(f.geom), ST_YMax(f.geom) - ST_YMin(f.geom))
-                >= ${minSizeDeg}::float8)
+      join lateral (
+        select * from layer_features lf
+        where lf.layer_id = l.id and lf.geom && b.env4326
+          and (${minSizeDeg}::float8 = 0
+               or ST_GeometryType(lf.geom) in ('ST_Point', 'ST_MultiPoint')
+               or greatest(ST_XMax(lf.geom) - ST_XMin(lf.geom), ST_YMax(lf.geom) - ST_YMin(lf.geom))
+                  >= ${minSizeDeg}::float8)
+        offset 0 -- keeps the subquery per layer (not flattened into one scan of every layer)
+      ) f on true
     ),
     cover as (
       select f.id as mvt_id, f.id as "featureId", f.layer_id::text as "layerId",
@@ -93,7 +108,11 @@ export async function projectTile(db: Db, projectId: string, t: TileCoords): Pro
         || coalesce((select ST_AsMVT(channel, 'channel', ${EXTENT}, 'geom', 'mvt_id') from channel), '')
         || coalesce((select ST_AsMVT(boundary, 'boundary', ${EXTENT}, 'geom', 'mvt_id') from boundary), '')
         || coalesce((select ST_AsMVT(subs, 'subcatchments', ${EXTENT}, 'geom') from subs), '')
-        as tile`);
+        as tile`;
+}
+
+export async function projectTile(db: Db, projectId: string, t: TileCoords): Promise<Uint8Array> {
+  const result = await db.execute<{ tile: Buffer | null }>(projectTileQuery(projectId, t));
   const tile = result.rows[0]?.tile;
   return tile ? new Uint8Array(tile.buffer, tile.byteOffset, tile.byteLength) : new Uint8Array();
 }

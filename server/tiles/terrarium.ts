@@ -67,5 +67,6 @@ export function terrariumPng(elevationsM: readonly (number | null)[], size: numb
     png.data[4 * k + 2] = b;
     png.data[4 * k + 3] = elevationsM[k] === null ? 0 : 255;
   }
-  return PNG.sync.write(png);
+  // "Sub" filtering suits smooth ground and halves the encoding time of adaptive filtering.
+  return PNG.sync.write(png, { filterType: 1 });
 }

@@ -1,24 +1,42 @@
 /**
  * A project's vector tiles: the fixture case's cover, soil and subcatchment (tests/support/
  * geodata-case.ts, invented shapes near 122.2° W, 38.4° N) read back with @mapbox/vector-tile.
+ * Cover and soil come from zoom 15 up; at z 15 the fixture (about 400 m square) spans two tiles,
+ * one above the other, so the tests read both and merge features by id.
  */
 import { eq } from "drizzle-orm";
 import supertest from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { surfaceClasses } from "../../server/db/schema-geodata";
+import { POLYGON_LAYERS_MIN_ZOOM } from "../../server/tiles/project-tiles";
 import { COVER, SOILS } from "../fixtures/geo/scenario";
 import { createTeam, signIn, startTestApp, type Agent, type TestApp } from "../support/app";
 import { buildGeodataCase, COVER_CLASS_KEYS, type GeodataCase } from "../support/geodata-case";
 import { binary, decodeTile, layerFeatures, tileOf } from "../support/tiles";
 
+type At = { z: number; x: number; y: number };
 let t: TestApp;
 let c: GeodataCase;
-// This z 14 tile holds the whole fixture (about 400 m square); a z 15 tile would cut it.
-const AT = tileOf(-122.198, 38.402, 14);
-const url = (projectId: string, at = AT) =>
+const UPPER = tileOf(-122.198, 38.403, 15);
+const LOWER = { ...UPPER, y: UPPER.y + 1 };
+const url = (projectId: string, at: At = UPPER) =>
   `/api/projects/${projectId}/tiles/${at.z}/${at.x}/${at.y}.mvt`;
 
 const getTile = (agent: Agent, path: string) => agent.get(path).buffer(true).parse(binary);
+
+/** A source-layer's features over both tiles, one entry per feature (by id or featureId). */
+async function features(agent: Agent, projectId: string, layer: string) {
+  const byId = new Map<string, ReturnType<typeof layerFeatures>[number]>();
+  for (const at of [UPPER, LOWER]) {
+    const res = await getTile(agent, url(projectId, at));
+    expect(res.status).toBe(200);
+    expect(res.headers["content-type"]).toContain("application/vnd.mapbox-vector-tile");
+    for (const f of layerFeatures(decodeTile(res.body as Buffer), layer, at)) {
+      byId.set(String(f.properties.featureId ?? f.properties.id), f);
+    }
+  }
+  return [...byId.values()];
+}
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -30,10 +48,7 @@ afterAll(async () => {
 
 describe("project vector tiles", () => {
   it("answers an MVT with every cover polygon, its class key, name and colour", async () => {
-    const res = await getTile(c.engineer, url(c.projectId));
-    expect(res.status).toBe(200);
-    expect(res.headers["content-type"]).toContain("application/vnd.mapbox-vector-tile");
-    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
+    const cover = await features(c.engineer, c.projectId, "cover");
     expect(cover).toHaveLength(COVER.length);
     const rows = await t.db
       .select()
@@ -55,12 +70,13 @@ describe("project vector tiles", () => {
   });
 
   it("puts cover vertices where the fixture has them (to a tile unit, under 1e-5°)", async () => {
-    const res = await getTile(c.engineer, url(c.projectId));
-    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
-    const range = cover.find((f) => f.properties.classKey === COVER_CLASS_KEYS.range);
-    const fixture = COVER.find((f) => f.properties.NAME === "range");
-    if (range?.geojson.geometry.type !== "Polygon" || !fixture) throw new Error("no range polygon");
-    const got = range.geojson.geometry.coordinates[0] ?? [];
+    // The lawn square (38.402–38.404° N) lies wholly in the upper tile.
+    const res = await getTile(c.engineer, url(c.projectId, UPPER));
+    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", UPPER);
+    const lawn = cover.find((f) => f.properties.classKey === COVER_CLASS_KEYS.lawn);
+    const fixture = COVER.find((f) => f.properties.NAME === "lawn");
+    if (lawn?.geojson.geometry.type !== "Polygon" || !fixture) throw new Error("no lawn polygon");
+    const got = lawn.geojson.geometry.coordinates[0] ?? [];
     for (const [lon = 0, lat = 0] of fixture.geometry.coordinates[0] ?? []) {
       const near = got.some(
         ([x = 0, y = 0]) => Math.abs(x - lon) < 1e-5 && Math.abs(y - lat) < 1e-5,
@@ -70,16 +86,23 @@ describe("project vector tiles", () => {
   });
 
   it("carries soils with their HSG and the subcatchment with its id and name", async () => {
-    const tile = decodeTile((await getTile(c.engineer, url(c.projectId))).body as Buffer);
-    const soil = layerFeatures(tile, "soil", AT);
+    const soil = await features(c.engineer, c.projectId, "soil");
     expect(soil.map((f) => f.properties.hsg).sort()).toEqual(
       SOILS.map((s) => s.properties.HSG).sort(),
     );
     expect(soil.every((f) => f.properties.layerId === c.soilLayerId)).toBe(true);
-    const subs = layerFeatures(tile, "subcatchments", AT);
+    const subs = await features(c.engineer, c.projectId, "subcatchments");
     expect(subs.map((f) => f.properties)).toEqual([
       { id: c.subcatchmentId, name: "Invented area A", scenario: "existing" },
     ]);
+  });
+
+  it("leaves cover and soil out below their zoom, keeping the subcatchments", async () => {
+    const at = tileOf(-122.198, 38.402, POLYGON_LAYERS_MIN_ZOOM - 1);
+    const res = await getTile(c.engineer, url(c.projectId, at));
+    expect(res.status).toBe(200);
+    const tile = decodeTile(res.body as Buffer);
+    expect(Object.keys(tile.layers)).toEqual(["subcatchments"]);
   });
 
   it("leaves an unmapped cover polygon's class empty", async () => {
@@ -88,8 +111,7 @@ describe("project vector tiles", () => {
     await t.pool.query("update layer_features set surface_class_id = null where layer_id = $1", [
       fresh.coverLayerId,
     ]);
-    const res = await getTile(fresh.engineer, url(fresh.projectId));
-    const cover = layerFeatures(decodeTile(res.body as Buffer), "cover", AT);
+    const cover = await features(fresh.engineer, fresh.projectId, "cover");
     expect(cover).toHaveLength(COVER.length);
     for (const f of cover) {
       expect(f.properties.classKey).toBeUndefined();
@@ -98,7 +120,7 @@ describe("project vector tiles", () => {
   });
 
   it("answers 204 for a tile with nothing of the project in it", async () => {
-    const res = await c.engineer.get(url(c.projectId, tileOf(10, 50, 14)));
+    const res = await c.engineer.get(url(c.projectId, tileOf(10, 50, 15)));
     expect(res.status).toBe(204);
   });
 
@@ -116,7 +138,7 @@ describe("project vector tiles", () => {
     const changed = await getTile(c.engineer, url(c.projectId)).set("If-None-Match", etag);
     expect(changed.status).toBe(200);
     expect(changed.headers.etag).not.toBe(etag);
-    const names = layerFeatures(decodeTile(changed.body as Buffer), "subcatchments", AT).map(
+    const names = layerFeatures(decodeTile(changed.body as Buffer), "subcatchments", UPPER).map(
       (f) => f.properties.name,
     );
     expect(names.sort()).toEqual(["Invented area A", "Invented area B"]);
