@@ -7,6 +7,7 @@ import { run as split } from "./split";
 import { run as ingest } from "./ingest";
 import { run as readers } from "./readers";
 import { run as compute } from "./compute";
+import { run as tiles } from "./tiles";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -15,6 +16,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "file readers", run: readers },
   { name: "layer upload pipeline", run: ingest },
   { name: "demo compute", run: compute },
+  { name: "map tiles", run: tiles },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];
