@@ -172,6 +172,13 @@ describe("sheet assembly", () => {
     expect(t.header.find((h) => h[0] === "Caution")?.[1]).toMatch(/engineer of record govern/);
   });
 
+  it("prints a method's validity range beside a result outside it", () => {
+    const outside = sheet.methods.find((m) => (m.validity?.outside.length ?? 0) > 0);
+    expect(outside, "a 90 m path on a tiny site lies outside some method's range").toBeDefined();
+    const row = sheetTable(sheet).methodRows.find((r) => r[0] === outside?.label);
+    expect(row?.[4]).toContain(`outside its range (${outside?.validity?.range})`);
+  });
+
   it("reports every method unavailable, with the reason, when a row blocks", () => {
     const blocked = assembleSheet(frame, built.rows, null, ["Segment 2 (shallow): adverse slope"]);
     expect(

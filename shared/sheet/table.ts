@@ -120,6 +120,16 @@ export interface SheetTable {
   readonly governing: readonly Cell[];
 }
 
+/** Minimum Tc applied, and where the case lies outside the method's range (with the range). */
+function methodNote(m: TravelTimeSheet["methods"][number]): string | null {
+  const parts: string[] = [];
+  if (m.minimumApplied) parts.push("minimum Tc applied");
+  if (m.validity && m.validity.outside.length > 0) {
+    parts.push(`outside its range (${m.validity.range}): ${m.validity.outside.join("; ")}`);
+  }
+  return parts.length > 0 ? parts.join("; ") : null;
+}
+
 export function sheetTable(sheet: TravelTimeSheet, projectName = sheet.project.name): SheetTable {
   const columns = sheetColumns(sheet);
   const totals: Cell[] = columns.map((c) => {
@@ -153,11 +163,7 @@ export function sheetTable(sheet: TravelTimeSheet, projectName = sheet.project.n
       m.status,
       m.totalMin,
       m.totalHr,
-      m.status === "ok"
-        ? [m.minimumApplied ? "minimum Tc applied" : "", ...(m.validity?.outside ?? [])]
-            .filter(Boolean)
-            .join("; ") || null
-        : m.reason,
+      m.status === "ok" ? methodNote(m) : m.reason,
     ]),
     governing: g
       ? ["Governing Tc", g.label, g.tcMin, g.tcHr, g.reason]
