@@ -1,8 +1,14 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 import { guardedContext } from "./support/browser";
-import { DEMO_PROJECT, demoEmail, signIn } from "./support/demo";
-import { openMapDesk, pathVersion, totalsByMethod } from "./support/map-desk";
+import { demoEmail, signIn } from "./support/demo";
+import {
+  openMapDesk,
+  pathVersion,
+  scenarioProject,
+  totalsByMethod,
+  waitForMapIdle,
+} from "./support/map-desk";
 import { saveScreenshot } from "./support/screenshots";
 import { useServerAndBrowser } from "./support/session";
 
@@ -12,11 +18,12 @@ describe("Map desk, engineer", () => {
   it("traces a path, moves a break, types a surveyed elevation and exports the same numbers", async () => {
     const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
+    const project = await scenarioProject(e2e.browser, e2e.server.url, "Map desk engineer");
     await signIn(page, demoEmail("engineer"));
-    await openMapDesk(page, DEMO_PROJECT.name);
+    await openMapDesk(page, project.name);
     const sheet = page.getByRole("region", { name: "Travel-time sheet" });
     await sheet.getByRole("table", { name: "Travel time by segment" }).waitFor();
-    await page.locator('[data-testid="desk-map"][data-idle="true"]').waitFor({ timeout: 20_000 });
+    await waitForMapIdle(page);
     await saveScreenshot(page, "map-desk");
 
     // Trace a new path across the subcatchment by clicking on the map, Enter to finish.

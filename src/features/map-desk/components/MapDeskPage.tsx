@@ -7,6 +7,7 @@ import { useMapConfig } from "../api/get-map-config";
 import { useSubcatchment } from "../api/get-subcatchment";
 import { useSubcatchments } from "../api/get-subcatchments";
 import { DeskWorkspace } from "./DeskWorkspace";
+import { MapOnly } from "./MapOnly";
 import { SubcatchmentPicker } from "./SubcatchmentPicker";
 
 /** /projects/:projectId/map — the map, the drawing tools and the travel-time sheet together. */
@@ -39,10 +40,8 @@ export function MapDeskPage() {
         <div className="p-4">
           <LoadError error={failed.error} onRetry={() => void failed.refetch()} />
         </div>
-      ) : list.data && list.data.length === 0 ? (
-        <p className="p-6 text-sm text-ink-600">
-          This project has no subcatchment yet. Add one on the Overview page, then draw it here.
-        </p>
+      ) : list.data && list.data.length === 0 && layers.data && config.data ? (
+        <MapOnly project={project} layers={layers.data} basemap={config.data.basemap} />
       ) : subcatchment.data && layers.data && config.data ? (
         <DeskWorkspace
           key={subcatchment.data.id}
