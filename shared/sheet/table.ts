@@ -150,6 +150,9 @@ export function sheetTable(sheet: TravelTimeSheet, projectName = sheet.project.n
       ["Units", sheet.units === "si" ? "SI (m, mm, ha, m³/s)" : "US customary (ft, in, ac, cfs)"],
       ["Return period (years)", sheet.returnPeriodYears],
       ["Flow path version", sheet.flowPathVersion],
+      ...(sheet.stale
+        ? [["Up to date", "No: the flow path changed since; compute again"] as const]
+        : []),
       ["Computed at", sheet.computedAt],
       ["Caution", sheet.caution],
     ],

@@ -77,4 +77,14 @@ describe("exports of the travel-time sheet", () => {
     const segmental = sheet.methods.find((m) => m.id === "nrcs-segmental");
     expect(total.getCell(col("Time, NRCS segmental")).value).toBe(segmental?.computedMin);
   });
+
+  it("says in the header when the path changed after the sheet was computed", async () => {
+    const sub = await c.engineer.get(`/api/subcatchments/${c.subcatchmentId}`);
+    await c.engineer
+      .put(`/api/subcatchments/${c.subcatchmentId}/flow-path`)
+      .send({ geometry: sub.body.flowPath.geometry, version: sub.body.flowPath.version });
+    const res = await c.engineer.get(`/api/subcatchments/${c.subcatchmentId}/sheet.csv`);
+    const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, "")).data;
+    expect(rows.find((r) => r[0] === "Up to date")?.[1]).toMatch(/changed since; compute again/);
+  });
 });
