@@ -144,6 +144,34 @@ describe("project vector tiles", () => {
     expect(names.sort()).toEqual(["Invented area A", "Invented area B"]);
   });
 
+  it("shows a new mapping on the next request: new ETag, new classes", async () => {
+    const fresh = await buildGeodataCase(t, "tiles-remap");
+    // The case inserts its features directly; an upload would have listed the file's fields.
+    await t.pool.query(`update layers set fields = '["CODE", "NAME"]' where id = $1`, [
+      fresh.coverLayerId,
+    ]);
+    const gis = t.agent();
+    await signIn(gis, fresh.team.members.gis);
+    const before = await getTile(gis, url(fresh.projectId));
+    const etag = before.headers.etag as string;
+    // Every fixture polygon mapped to the lawn class.
+    const put = await gis.put(`/api/layers/${fresh.coverLayerId}/mapping`).send({
+      field: "NAME",
+      entries: COVER.map((f) => ({
+        value: f.properties.NAME,
+        surfaceClassId: fresh.classIdByName.lawn,
+      })),
+    });
+    expect(put.status).toBe(200);
+    const after = await getTile(gis, url(fresh.projectId)).set("If-None-Match", etag);
+    expect(after.status).toBe(200);
+    expect(after.headers.etag).not.toBe(etag);
+    const cover = await features(gis, fresh.projectId, "cover");
+    expect(new Set(cover.map((f) => f.properties.classKey))).toEqual(
+      new Set([COVER_CLASS_KEYS.lawn]),
+    );
+  });
+
   it("lets a viewer read tiles, and answers 404 to another team and 401 to nobody", async () => {
     const viewer = t.agent();
     await signIn(viewer, c.team.members.viewer);
