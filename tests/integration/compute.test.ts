@@ -226,6 +226,22 @@ describe("compute", () => {
     );
   });
 
+  it("shows a stretch over an unmapped cover value as unmapped, with what to do", async () => {
+    const other = await buildGeodataCase(t, "compute-unmapped");
+    await t.db.execute(sql`
+      update layer_features set surface_class_id = null
+      where layer_id = ${other.coverLayerId} and attributes->>'NAME' = 'lawn'`);
+    const res = await other.engineer
+      .post(`/api/subcatchments/${other.subcatchmentId}/compute`)
+      .send({});
+    const s = res.body as TravelTimeSheet;
+    const first = s.segments[0];
+    expect(first?.surfaceClassName).toBeNull();
+    expect(first?.error).toMatch(/No mapped surface class here.*Map the cover layer's values/);
+    expect(s.methods.every((m) => m.status === "unavailable")).toBe(true);
+    expect(s.split.pieces[0]?.surfaceClassId).toBeNull();
+  });
+
   it("answers 404 for a sheet never computed", async () => {
     const made = await c.engineer
       .post(`/api/projects/${c.projectId}/subcatchments`)

@@ -25,13 +25,22 @@ import { pathProfile } from "./path-profile";
 
 const lengthOut = (units: "us" | "si", m: number) => (units === "si" ? m : m / 0.3048);
 
+/** The project's terrain, or null with the reason when its file cannot be read. */
 async function openProjectTerrain(
   store: ObjectStore,
-  t: { objectKey: string; info: unknown } | null,
-) {
-  if (!t) return null;
-  const file = await store.localCopy(t.objectKey);
-  return openTerrain(file, t.info as TerrainInfo);
+  t: { objectKey: string; info: unknown; name: string } | null,
+): Promise<{ sampler: TerrainSampler | null; problem: string | null }> {
+  if (!t) return { sampler: null, problem: null };
+  try {
+    const file = await store.localCopy(t.objectKey);
+    return { sampler: await openTerrain(file, t.info as TerrainInfo), problem: null };
+  } catch (err) {
+    console.error(`terrain ${t.objectKey} could not be opened:`, err);
+    return {
+      sampler: null,
+      problem: `The file of terrain layer "${t.name}" could not be read; upload it again.`,
+    };
+  }
 }
 
 export async function computeSheet(
@@ -44,7 +53,8 @@ export async function computeSheet(
   const units = project.units === "si" ? "si" : "us";
   let terrain: TerrainSampler | null = null;
   try {
-    terrain = await openProjectTerrain(store, data.terrain);
+    const opened = await openProjectTerrain(store, data.terrain);
+    terrain = opened.sampler;
     // The figures (PostGIS areas, land slope) and the path work are independent.
     const figuresPending = subcatchmentFigures(db, {
       projectId: project.id,
@@ -115,6 +125,7 @@ export async function computeSheet(
     });
     const problems = [...profile.problems, ...rowProblems(built.rows)];
     if (data.rainfallProblem) problems.push(data.rainfallProblem);
+    if (opened.problem) problems.push(opened.problem);
     if (profile.reversed) {
       problems.push(
         "The outlet end of the path is higher than its top: the path seems drawn the wrong way. Reverse it (POST …/flow-path/reverse) or check the terrain.",
