@@ -6,6 +6,7 @@ import { sessionMiddleware } from "./auth/session";
 import type { AppConfig } from "./config";
 import type { Db } from "./db/client";
 import { clientRouter } from "./http/client";
+import { MVT_TYPE } from "./tiles/respond";
 import { apiNotFound, errorHandler } from "./http/errors";
 import { requireJsonOrUpload } from "./http/multipart-routes";
 import { sameOriginOnly, securityHeaders } from "./http/security";
@@ -101,8 +102,15 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
   // An admin's own basemap style (BASEMAP_STYLE_URL) is fetched by the browser from its host.
   const mapOrigins = config.basemap.kind === "style" ? [new URL(config.basemap.url).origin] : [];
   app.use(securityHeaders(config.publicBaseUrl, mapOrigins));
-  // gzip: the client's JavaScript shrinks to about a third, and JSON answers compress well.
-  app.use(compression());
+  // gzip: the client's JavaScript shrinks to about a third, JSON answers and vector tiles
+  // (protobuf with repeated keys) compress well; the default filter skips the tile type.
+  app.use(
+    compression({
+      filter: (req, res) =>
+        String(res.getHeader("Content-Type") ?? "").startsWith(MVT_TYPE) ||
+        compression.filter(req, res),
+    }),
+  );
   app.use("/api", api);
   app.use(clientRouter(config.clientDist));
   app.use(errorHandler);

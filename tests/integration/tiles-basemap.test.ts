@@ -92,6 +92,16 @@ describe("demo basemap tiles", () => {
     expect(places).toContain("Harrow Hill");
   });
 
+  it("sends tiles gzip-compressed to a browser that accepts it, decoding to the same tile", async () => {
+    const res = await agent.get(url).set("Accept-Encoding", "gzip").buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    expect(res.headers["content-encoding"]).toBe("gzip");
+    const [plain] = await bothTiles();
+    expect(Object.keys(decodeTile(res.body as Buffer).layers).sort()).toEqual(
+      Object.keys(plain?.tile.layers ?? {}).sort(),
+    );
+  });
+
   it("gives contours their elevation and marks every fifth metre as index", async () => {
     const contours = (await bothTiles()).flatMap(({ at, tile }) =>
       layerFeatures(tile, "contours", at),
