@@ -1,5 +1,5 @@
 import { randomBytes } from "node:crypto";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { hashToken } from "../../server/auth/tokens";
@@ -358,8 +358,30 @@ export function sendCase(
 ) {
   const req = agent[method](prepared.path);
   if (prepared.upload) {
-    for (const [name, value] of Object.entries(prepared.upload.fields)) req.field(name, value);
-    return req.attach("file", prepared.upload.file);
+    // The whole multipart body in one buffer, sent with the headers: a route that refuses the
+    // caller before reading the body (401/403) must not race the client still streaming the
+    // file (write EPIPE instead of the answer).
+    const boundary = `rillmark-${randomBytes(8).toString("hex")}`;
+    const parts: Buffer[] = [];
+    for (const [name, value] of Object.entries(prepared.upload.fields)) {
+      parts.push(
+        Buffer.from(
+          `--${boundary}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`,
+        ),
+      );
+    }
+    const fileName = path.basename(prepared.upload.file);
+    parts.push(
+      Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="${fileName}"\r\n` +
+          "Content-Type: application/octet-stream\r\n\r\n",
+      ),
+      readFileSync(prepared.upload.file),
+      Buffer.from(`\r\n--${boundary}--\r\n`),
+    );
+    return req
+      .set("Content-Type", `multipart/form-data; boundary=${boundary}`)
+      .send(Buffer.concat(parts));
   }
   return prepared.body === undefined ? req : req.send(prepared.body);
 }
