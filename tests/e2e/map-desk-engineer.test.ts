@@ -18,7 +18,7 @@ describe("Map desk, engineer", () => {
   it("traces a path, moves a break, types a surveyed elevation and exports the same numbers", async () => {
     const guard = await guardedContext(e2e.browser, e2e.server.url);
     const { page } = guard;
-    const project = await scenarioProject(e2e.browser, e2e.server.url, "Map desk engineer");
+    const project = await scenarioProject(e2e.browser, e2e.server.url, "Path tracing");
     await signIn(page, demoEmail("engineer"));
     await openMapDesk(page, project.name);
     const sheet = page.getByRole("region", { name: "Travel-time sheet" });

@@ -87,7 +87,7 @@ describe("Map desk by role", () => {
     const { projectId, teamId, name } = await freshProject(
       e2e.browser,
       e2e.server.url,
-      "Map cover",
+      "Cover colours",
     );
     const gis = await ApiClient.signIn(e2e.server.url, demoEmail("gis"), DEMO_PASSWORD);
     const sent = await gis.upload<{ id: string }>(

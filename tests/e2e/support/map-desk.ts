@@ -8,7 +8,10 @@ import { freshProject } from "./project";
 /** From the projects list to the project's Map desk, waiting for the map to be drawn. */
 export async function openMapDesk(page: Page, projectName: string): Promise<void> {
   await page.getByRole("link", { name: projectName }).first().click();
-  await page.getByRole("link", { name: "Map desk" }).click();
+  await page
+    .getByRole("navigation", { name: "Project pages" })
+    .getByRole("link", { name: "Map desk" })
+    .click();
   await page.getByRole("heading", { level: 1, name: "Map desk" }).waitFor();
   await page.getByTestId("desk-map").locator("canvas").waitFor();
 }

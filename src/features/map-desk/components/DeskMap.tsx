@@ -1,4 +1,4 @@
-import type { Map as MapLibreMap, MapMouseEvent } from "maplibre-gl";
+import { ScaleControl, type Map as MapLibreMap, type MapMouseEvent } from "maplibre-gl";
 import { useEffect, useRef, useState } from "react";
 import type { BasemapConfig } from "../api/get-map-config";
 import { createDeskMap } from "../map/create-map";
@@ -21,6 +21,9 @@ export function DeskMap(props: DeskMapProps) {
   const container = useRef<HTMLDivElement>(null);
   const mapRef = useRef<MapLibreMap | null>(null);
   const boundsRef = useRef(props.bounds);
+  // The map is made in the project's unit; a later US/SI switch changes only the scale bar.
+  const unitRef = useRef(lengthUnit);
+  const [ready, setReady] = useState<MapLibreMap | null>(null);
   const [failure, setFailure] = useState<string | null>(null);
   const [pointer, setPointer] = useState<{ lng: number; lat: number } | null>(null);
 
@@ -35,7 +38,7 @@ export function DeskMap(props: DeskMapProps) {
       projectId,
       terrainLayerId,
       bounds: boundsRef.current,
-      lengthUnit,
+      lengthUnit: unitRef.current,
     })
       .then((map) => {
         if (cancelled) {
@@ -54,7 +57,9 @@ export function DeskMap(props: DeskMapProps) {
         });
         map.on("mouseleave", SEGMENT_LAYER, () => onHover(null));
         map.once("load", () => {
-          if (!cancelled) onReady(map);
+          if (cancelled) return;
+          setReady(map);
+          onReady(map);
         });
       })
       .catch((error: unknown) => {
@@ -63,10 +68,20 @@ export function DeskMap(props: DeskMapProps) {
     return () => {
       cancelled = true;
       onReady(null);
+      setReady(null);
       made?.remove();
       mapRef.current = null;
     };
-  }, [basemap, projectId, terrainLayerId, lengthUnit, onReady, onHover]);
+  }, [basemap, projectId, terrainLayerId, onReady, onHover]);
+
+  useEffect(() => {
+    if (!ready) return;
+    const scale = new ScaleControl({ unit: lengthUnit === "ft" ? "imperial" : "metric" });
+    ready.addControl(scale, "bottom-left");
+    return () => {
+      ready.removeControl(scale);
+    };
+  }, [ready, lengthUnit]);
 
   // Highlight the hovered segment (from the sheet or the map) through feature state.
   const hovered = props.hovered;

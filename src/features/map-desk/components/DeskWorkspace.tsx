@@ -128,7 +128,7 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
   const [bounds] = useState(() => initialBounds(subcatchment, layers));
 
   return (
-    <div className="grid h-[calc(100vh-10.5rem)] min-h-[36rem] grid-cols-[minmax(0,1fr)_minmax(0,1.15fr)]">
+    <div className="grid h-[calc(100vh-12rem)] min-h-[32rem] grid-cols-[minmax(0,1fr)_minmax(0,1.15fr)]">
       <section aria-label="Map and tools" className="flex min-h-0 flex-col border-r border-ink-200">
         {canEdit && (
           <DeskToolbar
@@ -155,7 +155,12 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
             onHover={setHovered}
             onReady={setMap}
           />
-          <LayerPanel map={map} projectId={project.id} hasTerrain={Boolean(terrain)} />
+          <LayerPanel
+            map={map}
+            projectId={project.id}
+            terrainLayerId={terrain?.id}
+            unit={units === "si" ? "m" : "ft"}
+          />
           <BreakMarkers
             map={map}
             path={path}

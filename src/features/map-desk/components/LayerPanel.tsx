@@ -2,13 +2,15 @@ import type { Map as MapLibreMap } from "maplibre-gl";
 import { useEffect, useState } from "react";
 import { useSurfaceClasses } from "../api/get-surface-classes";
 import { basemapLayerIds } from "../map/create-map";
+import { ContourInterval } from "./ContourInterval";
 import { HSG_COLOURS, MAP_COLOURS, REGIME_COLOURS, REGIME_NAMES } from "../map/palette";
 import { TOGGLES, TOGGLE_LAYERS, type ToggleId } from "../map/project-layers";
 
 interface Props {
   map: MapLibreMap | null;
   projectId: string;
-  hasTerrain: boolean;
+  terrainLayerId: string | undefined;
+  unit: "ft" | "m";
 }
 
 type State = Record<ToggleId, { on: boolean; opacity: number }>;
@@ -37,7 +39,8 @@ const Swatch = ({ colour }: { colour: string }) => (
 );
 
 /** Layer switches, opacity and the legend, folded over the map's top-left corner. */
-export function LayerPanel({ map, projectId, hasTerrain }: Props) {
+export function LayerPanel({ map, projectId, terrainLayerId, unit }: Props) {
+  const hasTerrain = terrainLayerId !== undefined;
   const [state, setState] = useState<State>(initial);
   const classes = useSurfaceClasses(projectId);
   useEffect(() => {
@@ -45,7 +48,9 @@ export function LayerPanel({ map, projectId, hasTerrain }: Props) {
     for (const t of TOGGLES) apply(map, t.id, state[t.id]);
   }, [map, state]);
 
-  const toggles = TOGGLES.filter((t) => t.id !== "hillshade" || hasTerrain);
+  const toggles = TOGGLES.filter(
+    (t) => (t.id !== "hillshade" && t.id !== "contours") || hasTerrain,
+  );
   return (
     <details className="absolute top-2 left-2 z-10 max-h-[calc(100%-1rem)] w-60 overflow-auto rounded-md border border-ink-200 bg-white/95 text-sm shadow-sm">
       <summary className="cursor-pointer px-3 py-1.5 font-medium text-ink-800">
@@ -83,6 +88,9 @@ export function LayerPanel({ map, projectId, hasTerrain }: Props) {
             )}
           </div>
         ))}
+        {map && terrainLayerId && (
+          <ContourInterval map={map} terrainLayerId={terrainLayerId} unit={unit} />
+        )}
         <h2 className="pt-1 text-xs font-semibold tracking-wide text-ink-600 uppercase">Cover</h2>
         <ul className="space-y-0.5 text-xs">
           {(classes.data ?? []).map((c) => (

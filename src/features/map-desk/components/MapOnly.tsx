@@ -24,7 +24,7 @@ export function MapOnly({
   const [bounds] = useState(() => initialBounds(null, layers));
   const terrain = newestReady(layers, "terrain");
   return (
-    <div className="grid h-[calc(100vh-10.5rem)] min-h-[36rem] grid-cols-[minmax(0,1fr)_20rem]">
+    <div className="grid h-[calc(100vh-12rem)] min-h-[32rem] grid-cols-[minmax(0,1fr)_20rem]">
       <div className="relative">
         <DeskMap
           basemap={basemap}
@@ -36,7 +36,12 @@ export function MapOnly({
           onHover={noHover}
           onReady={setMap}
         />
-        <LayerPanel map={map} projectId={project.id} hasTerrain={Boolean(terrain)} />
+        <LayerPanel
+          map={map}
+          projectId={project.id}
+          terrainLayerId={terrain?.id}
+          unit={project.units === "si" ? "m" : "ft"}
+        />
       </div>
       <p className="border-l border-ink-200 p-4 text-sm text-ink-600">
         This project has no subcatchment yet. Add one on the Overview page; its flow path, boundary

@@ -9,6 +9,7 @@ import "maplibre-gl/dist/maplibre-gl.css";
 import { Protocol } from "pmtiles";
 import type { BasemapConfig } from "../api/get-map-config";
 import { basemapLayers, basemapStyle, demoBasemapTiles } from "./basemap-style";
+import { contourLayers, contourTiles, DEFAULT_INTERVAL } from "./contours";
 import { addOverlays } from "./desk-overlays";
 import { projectLayers, projectSources } from "./project-layers";
 
@@ -48,12 +49,22 @@ export async function createDeskMap(options: CreateMapOptions): Promise<maplibre
   const origin = window.location.origin;
   const style = await baseStyle(options.basemap, origin);
   const sources = projectSources(origin, options.projectId, options.terrainLayerId);
+  const terrainId = options.terrainLayerId;
+  const unit = options.lengthUnit;
+  if (terrainId) {
+    sources["terrain-contours"] = {
+      type: "vector",
+      tiles: contourTiles(origin, terrainId, unit, DEFAULT_INTERVAL[unit]),
+      maxzoom: 17,
+    };
+  }
   // The project's layers sit under the basemap's labels (the first symbol layer).
   const firstLabel = style.layers.findIndex((l) => l.type === "symbol");
   const at = firstLabel < 0 ? style.layers.length : firstLabel;
   const layers = [
     ...style.layers.slice(0, at),
-    ...projectLayers(Boolean(options.terrainLayerId)),
+    ...projectLayers(Boolean(terrainId)),
+    ...(terrainId ? contourLayers() : []),
     ...style.layers.slice(at),
   ];
   const map = new maplibregl.Map({
@@ -69,10 +80,6 @@ export async function createDeskMap(options: CreateMapOptions): Promise<maplibre
   });
   map.touchZoomRotate.disableRotation();
   map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
-  map.addControl(
-    new maplibregl.ScaleControl({ unit: options.lengthUnit === "ft" ? "imperial" : "metric" }),
-    "bottom-left",
-  );
   map.on("load", () => addOverlays(map));
   return map;
 }

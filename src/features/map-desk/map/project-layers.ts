@@ -6,11 +6,13 @@
 import type { LayerSpecification, SourceSpecification } from "maplibre-gl";
 import { HSG_COLOURS, MAP_COLOURS as C } from "./palette";
 
-export type ToggleId = "hillshade" | "cover" | "soil" | "channel" | "boundary" | "basemap";
+export type ToggleId =
+  "hillshade" | "contours" | "cover" | "soil" | "channel" | "boundary" | "basemap";
 
 export const TOGGLES: readonly { id: ToggleId; label: string; opacity: number }[] = [
   { id: "basemap", label: "Basemap", opacity: 1 },
   { id: "hillshade", label: "Hillshade", opacity: 0.55 },
+  { id: "contours", label: "Contours", opacity: 0.9 },
   { id: "cover", label: "Cover", opacity: 0.6 },
   { id: "soil", label: "Soils (HSG)", opacity: 0.35 },
   { id: "channel", label: "Channels", opacity: 1 },
@@ -21,6 +23,10 @@ export const TOGGLES: readonly { id: ToggleId; label: string; opacity: number }[
 export const TOGGLE_LAYERS: Record<ToggleId, readonly (readonly [string, string])[]> = {
   basemap: [],
   hillshade: [["hillshade", "hillshade-exaggeration"]],
+  contours: [
+    ["terrain-contour-line", "line-opacity"],
+    ["terrain-contour-label", "text-opacity"],
+  ],
   cover: [
     ["cover-fill", "fill-opacity"],
     ["cover-edge", "line-opacity"],
