@@ -132,6 +132,20 @@ export const travelTimeSheetSchema = z.object({
     avgSlopePercent: maybe,
     notes: z.array(z.string()),
   }),
+  /**
+   * The kinematic-wave solve for the rainfall chart: the overland time and design intensity it
+   * settled on, and every iterate (tc, i(tc)) on the IDF curve, intensities in the sheet's units.
+   * Absent on sheets stored before it was kept, null when the method did not run.
+   */
+  kinematic: z
+    .object({
+      tcMin: num,
+      intensity: num,
+      solver: z.enum(["fixed-point", "bracketing"]),
+      iterations: z.array(z.object({ tcMin: num, intensity: num })),
+    })
+    .nullable()
+    .optional(),
   /** Warnings that concern no single segment (the segments carry their own too). */
   warnings: z.array(sheetWarningSchema),
   /** What keeps the methods from running at all; empty when they ran. */

@@ -68,6 +68,18 @@ function fillRows(rows: readonly SheetSegment[], result: ComputeResult): SheetSe
   return out;
 }
 
+/** The kinematic-wave solve (overland time, intensity, iterates) for the rainfall chart. */
+function kinematicSolve(result: ComputeResult): TravelTimeSheet["kinematic"] {
+  const m = result.methods["kinematic-wave"];
+  if (m.status === "unavailable") return null;
+  return {
+    tcMin: m.overlandMin,
+    intensity: m.intensity,
+    solver: m.solver,
+    iterations: m.iterations.map((it) => ({ tcMin: it.tcMin, intensity: it.intensity })),
+  };
+}
+
 export function assembleSheet(
   frame: SheetFrame,
   rows: readonly SheetSegment[],
@@ -104,6 +116,7 @@ export function assembleSheet(
       reason: governed.reason,
     },
     peakFlow: result.peakFlow && { ...result.peakFlow },
+    kinematic: kinematicSolve(result),
     warnings: [
       ...extraWarnings,
       ...result.warnings

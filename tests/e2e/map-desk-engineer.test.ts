@@ -115,6 +115,13 @@ describe("Map desk, engineer", () => {
       expect(Number(row![2]).toFixed(2)).toBe(min);
     }
     await saveScreenshot(page, "map-desk-edited");
+    // The plots: profile, Tc by method and the kinematic-wave rainfall solve with its iterates.
+    await page.getByRole("figure", { name: "Longitudinal profile" }).waitFor();
+    await page.getByRole("figure", { name: "Tc by method" }).waitFor();
+    const solve = page.getByRole("figure", { name: "Kinematic-wave rainfall solve" });
+    await solve.scrollIntoViewIfNeeded();
+    expect(await solve.textContent()).toMatch(/Solution: tc = \d+\.\d\d min/);
+    await saveScreenshot(page, "map-desk-charts");
     expect(guard.offHostRequests).toEqual([]);
     await guard.close();
   });

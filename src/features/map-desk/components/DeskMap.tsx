@@ -116,7 +116,7 @@ export function DeskMap(props: DeskMapProps) {
       )}
       <p
         aria-live="off"
-        className="pointer-events-none absolute right-2 bottom-2 rounded bg-white/85 px-2 py-0.5 font-mono text-xs text-ink-700"
+        className="pointer-events-none absolute top-2 right-12 rounded bg-white/85 px-2 py-0.5 font-mono text-xs text-ink-700"
       >
         {pointer
           ? `${pointer.lat.toFixed(6)}°, ${pointer.lng.toFixed(6)}°`

@@ -13,6 +13,7 @@ import {
 import type { RegimeSegment } from "../../../../shared/geo";
 import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
 import { REGIME_COLOURS } from "../map/palette";
+import { RainfallChart } from "./RainfallChart";
 
 const WIDTH = 520;
 
@@ -134,6 +135,7 @@ export function SheetCharts({
     <div className="mt-3 space-y-3" aria-busy={live !== null}>
       <ProfileChart sheet={sheet} />
       <MethodBars sheet={sheet} />
+      <RainfallChart sheet={sheet} />
     </div>
   );
 }

@@ -73,6 +73,15 @@ export function sheetInUnits(sheet: TravelTimeSheet, to: UnitSystem): TravelTime
       intensity: c.depth(sheet.peakFlow.intensity),
     },
     figures: { ...sheet.figures, area: maybe(sheet.figures.area, c.area) },
+    // Intensities convert as depths per hour.
+    kinematic: sheet.kinematic && {
+      ...sheet.kinematic,
+      intensity: c.depth(sheet.kinematic.intensity),
+      iterations: sheet.kinematic.iterations.map((it) => ({
+        tcMin: it.tcMin,
+        intensity: c.depth(it.intensity),
+      })),
+    },
     profile: sheet.profile.map((p) => ({
       station: len(p.station),
       elevation: maybe(p.elevation, len),
