@@ -25,7 +25,7 @@ import { TerrainTiles } from "../tiles/terrain-tiles";
 import type { RouteDeps } from "./deps";
 
 /** Bump when terrain tiles are made differently (size, fill), so cached ones are dropped. */
-const TERRAIN_TILE_FORMAT = 1;
+const TERRAIN_TILE_FORMAT = 2;
 const DAY_S = 86_400;
 const HOUR_S = 3_600;
 

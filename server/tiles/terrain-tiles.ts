@@ -1,10 +1,10 @@
 /**
  * Raster-dem tiles of a project's terrain layer: 256 × 256 px in the terrarium encoding, each
- * pixel the bilinear elevation (the terrain sampler) at the pixel's centre. Samplers stay open
+ * pixel the bilinear elevation (the terrain sampler's grid path) at the pixel's centre. Samplers stay open
  * in a small LRU keyed by layer and object, so a map's burst of tiles reads the file's header
  * once; calls on one sampler run one at a time (its block cache is shared between them).
  */
-import type { TerrainInfo, TerrainSampler } from "../geodata/terrain";
+import type { LonLatGrid, TerrainInfo, TerrainSampler } from "../geodata/terrain";
 import { openTerrain } from "../geodata/terrain";
 import type { ObjectStore } from "../storage";
 import { tileBounds4326, type TileCoords } from "./coords";
@@ -71,12 +71,12 @@ export class TerrainTiles {
     const pixelDeg = (east - west) / TERRAIN_TILE_PX;
     if (pixelDeg > MAX_CELLS_PER_PIXEL * cellDeg) return null;
 
-    const points = pixelCentres(t);
+    const grid = tileGrid(t);
     const entry = this.entry(layer);
-    const run = entry.queue.then(async () => (await entry.sampler).elevationsM(points));
+    const run = entry.queue.then(async () => (await entry.sampler).elevationsOnGridM(grid));
     entry.queue = run.catch(() => undefined);
     const elevations = await run;
-    if (elevations.every((e) => e === null)) return null;
+    if (elevations.every((e) => Number.isNaN(e))) return null;
     return terrariumPng(elevations, TERRAIN_TILE_PX);
   }
 
@@ -93,17 +93,18 @@ export class TerrainTiles {
   }
 }
 
-/** Longitude/latitude of each pixel centre, row by row from the north (Web Mercator rows). */
-export function pixelCentres({ z, x, y }: TileCoords): [number, number][] {
+/**
+ * The tile's pixels as a grid for the sampler: (u, v) in pixels from the tile's north-west
+ * corner to WGS84 (inverse Web Mercator), so pixel (i, j)'s centre is at (i + 0.5, j + 0.5).
+ */
+export function tileGrid({ z, x, y }: TileCoords): LonLatGrid {
   const n = 2 ** z * TERRAIN_TILE_PX;
-  const out: [number, number][] = [];
-  for (let row = 0; row < TERRAIN_TILE_PX; row += 1) {
-    const py = y * TERRAIN_TILE_PX + row + 0.5;
-    const lat = (Math.atan(Math.sinh(Math.PI * (1 - (2 * py) / n))) * 180) / Math.PI;
-    for (let col = 0; col < TERRAIN_TILE_PX; col += 1) {
-      const px = x * TERRAIN_TILE_PX + col + 0.5;
-      out.push([(px / n) * 360 - 180, lat]);
-    }
-  }
-  return out;
+  return {
+    width: TERRAIN_TILE_PX,
+    height: TERRAIN_TILE_PX,
+    lonLatAt: (u, v) => [
+      ((x * TERRAIN_TILE_PX + u) / n) * 360 - 180,
+      (Math.atan(Math.sinh(Math.PI * (1 - (2 * (y * TERRAIN_TILE_PX + v)) / n))) * 180) / Math.PI,
+    ],
+  };
 }

@@ -3,3 +3,4 @@ export { inspectTerrain } from "./inspect";
 export { openTerrain } from "./sampler";
 export { knownCrs } from "./crs";
 export type { TerrainInfo, TerrainSampler } from "./types";
+export type { LonLatGrid } from "./lattice";

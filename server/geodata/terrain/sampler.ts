@@ -1,36 +1,22 @@
 /**
  * Elevations from a terrain GeoTIFF at WGS84 points, reading only the blocks (tiles, or
- * 256-row bands of a striped file) that the points fall in, with a small LRU of decoded blocks
- * so a path that walks along a tile reads it once. Each point: lon/lat → raster CRS (proj4) →
- * continuous sample coordinates (integers on cell centres) → bilinear between the four nearest
- * cell centres (shared/geo/bilinear). Half a cell beyond the outer centres the edge value is
- * held; further out, or next to a nodata cell, the answer is null ("no elevation").
+ * 256-row bands of a striped file) that the points fall in, through a small LRU of decoded blocks
+ * (blocks.ts) so a path that walks along a tile reads it once. Each point: lon/lat → raster CRS
+ * (proj4) → continuous sample coordinates (integers on cell centres) → bilinear between the four
+ * nearest cell centres (shared/geo/bilinear). Half a cell beyond the outer centres the edge value
+ * is held; further out, or next to a nodata cell, the answer is null ("no elevation").
+ * A regular grid of points (a map tile) goes faster through elevationsOnGridM: positions from a
+ * projected lattice (lattice.ts, error bound there) and blocks fetched per band (grid.ts).
  */
 import { fromFile } from "geotiff";
 import proj4 from "proj4";
 import { bilinear } from "../../../shared/geo/bilinear";
 import { M_PER_FT } from "../../../shared/hydrology/units";
+import { CACHE_BLOCKS, RasterBlocks } from "./blocks";
 import { knownCrs } from "./crs";
+import { elevationsAtCells } from "./grid";
+import { gridPositions, type ToCell } from "./lattice";
 import type { TerrainInfo, TerrainSampler } from "./types";
-
-const CACHE_BLOCKS = 64;
-
-class BlockCache {
-  private readonly blocks = new Map<number, ArrayLike<number>>();
-  constructor(private readonly capacity: number) {}
-  get(key: number): ArrayLike<number> | undefined {
-    const block = this.blocks.get(key);
-    if (block !== undefined) {
-      this.blocks.delete(key); // re-insert: Map order is the recency order
-      this.blocks.set(key, block);
-    }
-    return block;
-  }
-  set(key: number, block: ArrayLike<number>): void {
-    this.blocks.set(key, block);
-    if (this.blocks.size > this.capacity) this.blocks.delete(this.blocks.keys().next().value!);
-  }
-}
 
 export async function openTerrain(filePath: string, info: TerrainInfo): Promise<TerrainSampler> {
   const crs = knownCrs(info.epsg);
@@ -41,49 +27,33 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
   const toMetres = info.verticalUnit === "ft" ? M_PER_FT : 1;
   const { width, height, nodata } = info;
   const nodata32 = nodata === null ? null : Math.fround(nodata);
-  // Striped files may hold the whole raster in one strip; read them in 256-row bands instead.
-  const bw = info.tiled ? info.blockWidth : Math.min(width, 256);
-  const bh = info.tiled ? info.blockHeight : Math.min(height, 256);
-  const across = Math.ceil(width / bw);
-  const cache = new BlockCache(CACHE_BLOCKS);
+  const blocks = new RasterBlocks(image, info);
   // Pixel-is-area: the tie point is the top-left cell's outer corner, its centre half a cell in.
   const shift = info.rasterType === "area" ? 0.5 : 0;
 
-  async function load(key: number): Promise<void> {
-    const bx = key % across;
-    const by = Math.floor(key / across);
-    const window = [
-      bx * bw,
-      by * bh,
-      Math.min((bx + 1) * bw, width),
-      Math.min((by + 1) * bh, height),
-    ];
-    const [band] = (await image.readRasters({
-      window,
-      samples: [0],
-    })) as unknown as ArrayLike<number>[];
-    // Kept in the file's own sample type: no copy, no precision lost.
-    cache.set(key, band ?? []);
-  }
-
-  const blockKey = (col: number, row: number) =>
-    Math.floor(row / bh) * across + Math.floor(col / bw);
-
   /** A cell's value from a block the caller made sure is cached. */
   function cell(col: number, row: number): number | null {
-    const bx = Math.floor(col / bw);
-    const by = Math.floor(row / bh);
-    const blockWidth = Math.min((bx + 1) * bw, width) - bx * bw;
-    const v = cache.get(by * across + bx)?.[(row - by * bh) * blockWidth + (col - bx * bw)];
+    const key = blocks.key(col, row);
+    const bx = key % blocks.across;
+    const by = Math.floor(key / blocks.across);
+    const v =
+      blocks.peek(key)?.[(row - by * blocks.bh) * blocks.widthOf(key) + (col - bx * blocks.bw)];
     if (v === undefined || Number.isNaN(v) || v === nodata || v === nodata32) return null;
     return v;
   }
 
+  /** Continuous sample coordinates of a point (NaN where proj4 gives none). */
+  const toCell: ToCell = (lon, lat) => {
+    const [x = Number.NaN, y = Number.NaN] = convert ? convert.forward([lon, lat]) : [lon, lat];
+    return [
+      (x - info.originX) / info.pixelSizeX - shift,
+      (info.originY - y) / info.pixelSizeY - shift,
+    ];
+  };
+
   /** Sample coordinates of a point, or null outside the raster's half-cell margin. */
   function position(lon: number, lat: number): [number, number] | null {
-    const [x = Number.NaN, y = Number.NaN] = convert ? convert.forward([lon, lat]) : [lon, lat];
-    const col = (x - info.originX) / info.pixelSizeX - shift;
-    const row = (info.originY - y) / info.pixelSizeY - shift;
+    const [col, row] = toCell(lon, lat);
     if (!(col >= -0.5 && row >= -0.5 && col <= width - 0.5 && row <= height - 0.5)) return null;
     return [Math.min(Math.max(col, 0), width - 1), Math.min(Math.max(row, 0), height - 1)];
   }
@@ -121,10 +91,10 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
             [0, 1],
             [1, 1],
           ] as const) {
-            needed.add(blockKey(Math.min(c0 + dc, width - 1), Math.min(r0 + dr, height - 1)));
+            needed.add(blocks.key(Math.min(c0 + dc, width - 1), Math.min(r0 + dr, height - 1)));
           }
         }
-        for (const key of needed) if (cache.get(key) === undefined) await load(key);
+        for (const key of needed) await blocks.get(key);
         for (let k = start; k < end; k += 1) {
           const p = where[k];
           if (p) out[k] = interpolate(p[0], p[1]);
@@ -132,6 +102,10 @@ export async function openTerrain(filePath: string, info: TerrainInfo): Promise<
         start = end;
       }
       return out;
+    },
+    async elevationsOnGridM(grid) {
+      const { cols, rows } = gridPositions(grid, toCell);
+      return elevationsAtCells(info, blocks, cols, rows, grid.width, toMetres);
     },
     async close() {
       await tiff.close();

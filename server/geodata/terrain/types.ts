@@ -1,3 +1,5 @@
+import type { LonLatGrid } from "./lattice";
+
 /** What Rillmark knows of a terrain GeoTIFF after inspecting it (stored with the layer, JSON). */
 export interface TerrainInfo {
   readonly epsg: number;
@@ -26,5 +28,11 @@ export interface TerrainInfo {
 export interface TerrainSampler {
   /** Bilinear elevations in metres at WGS84 points; null outside the raster or at nodata. */
   elevationsM(points: readonly (readonly [number, number])[]): Promise<(number | null)[]>;
+  /**
+   * The same elevations at every point of a regular grid (a map tile's pixel centres), row-major
+   * from the north-west, NaN where there is none; positions within 1/1000 cell of the exact
+   * ones (lattice.ts).
+   */
+  elevationsOnGridM(grid: LonLatGrid): Promise<Float64Array>;
   close(): Promise<void>;
 }
