@@ -113,7 +113,10 @@ describe("Rainfall tables and Design rules pages", () => {
     expect(await seriousAxeViolations(page)).toEqual([]);
 
     await conflict.getByRole("button", { name: "Reload the rules" }).click();
-    expect(await form.getByLabel("Minimum Tc (min)").inputValue()).toBe("7");
+    // The reload refetches: wait for the form to show the other person's saved value.
+    await expect
+      .poll(() => form.getByLabel("Minimum Tc (min)").inputValue(), { timeout: 10_000 })
+      .toBe("7");
     saved = (await (
       await page.request.get(`/api/projects/${projectId}/design-rules`)
     ).json()) as typeof saved;
