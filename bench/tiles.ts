@@ -6,7 +6,8 @@
  * cookie, the whole middleware chain), a deterministic spread of tiles at zooms 13–17 (cover
  * polygons are served from zoom 15; the lower zooms show what the other layers cost).
  * Prints p50 / p95 per zoom, the tile sizes, whether the tile query uses the GiST index, and
- * the terrain and basemap tile times. Target: p95 under 50 ms per tile.
+ * the terrain and basemap tile times, and where a terrain tile's time goes (bench/terrain-tiles.ts).
+ * Target: p95 under 50 ms per tile.
  */
 import http from "node:http";
 import type { AddressInfo } from "node:net";
@@ -20,6 +21,7 @@ import { seedBasemap } from "../server/seed/basemap";
 import { projectTileQuery } from "../server/tiles/project-tiles";
 import { createTeam, startTestApp, type TestApp } from "../tests/support/app";
 import type { BenchRow } from "./table";
+import { run as terrainTileParts } from "./terrain-tiles";
 
 const POLYGONS = 100_000;
 const SIDE = Math.ceil(Math.sqrt(POLYGONS));
@@ -188,6 +190,7 @@ export async function run(): Promise<BenchRow[]> {
       ok: p95 < TARGET_MS,
     });
     rows.push(...(await terrainAndBasemap(t, base, cookie, project.id)));
+    rows.push(...(await terrainTileParts()));
   } finally {
     await new Promise<void>((resolve) => server.close(() => resolve()));
     server.closeAllConnections();
@@ -238,7 +241,9 @@ async function terrainAndBasemap(t: TestApp, base: string, cookie: string, proje
     }
   }
   const first = await timeTiles(base, cookie, paths.slice(0, 1));
-  const terrain = await timeTiles(base, cookie, paths);
+  // Three rounds: the demo terrain has only 17 tiles at these zooms, too few for a p95.
+  const rounds = [...paths, ...paths, ...paths];
+  const terrain = await timeTiles(base, cookie, rounds);
   const maps = await timeTiles(base, cookie, basemap);
   const p95 = quantile(terrain.times, 0.95);
   const mp95 = quantile(maps.times, 0.95);
@@ -249,7 +254,7 @@ async function terrainAndBasemap(t: TestApp, base: string, cookie: string, proje
       unit: "ms",
     },
     {
-      name: `terrain tile z 14–17 (${paths.length} tiles) p50 / p95`,
+      name: `terrain tile z 14–17 (${paths.length} tiles × 3) p50 / p95`,
       value: `${quantile(terrain.times, 0.5).toFixed(1)} / ${p95.toFixed(1)}`,
       unit: "ms",
       target: `p95 < ${TARGET_MS}`,
