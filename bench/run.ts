@@ -8,6 +8,7 @@ import { run as ingest } from "./ingest";
 import { run as readers } from "./readers";
 import { run as compute } from "./compute";
 import { run as tiles } from "./tiles";
+import { run as mapDesk } from "./map";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -17,6 +18,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "layer upload pipeline", run: ingest },
   { name: "demo compute", run: compute },
   { name: "map tiles", run: tiles },
+  { name: "map desk", run: mapDesk },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

@@ -16,7 +16,8 @@ interface Props {
 type State = Record<ToggleId, { on: boolean; opacity: number }>;
 
 const initial = Object.fromEntries(
-  TOGGLES.map((t) => [t.id, { on: t.id !== "soil", opacity: t.opacity }]),
+  // Soils and terrain contours start hidden: the cover and the basemap's contours read first.
+  TOGGLES.map((t) => [t.id, { on: t.id !== "soil" && t.id !== "contours", opacity: t.opacity }]),
 ) as State;
 
 function apply(map: MapLibreMap, id: ToggleId, { on, opacity }: State[ToggleId]) {

@@ -1,3 +1,4 @@
+import { lazy, Suspense } from "react";
 import type { FlowRegime } from "../../../../shared/geo";
 import { ftFromM, mFromFt, type UnitSystem } from "../../../../shared/hydrology/units";
 import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
@@ -13,7 +14,9 @@ import type { usePathAutosave } from "../lib/use-path-autosave";
 import { LivePreview } from "./LivePreview";
 import { MethodTotals } from "./MethodTotals";
 import { SegmentTable } from "./SegmentTable";
-import { SheetCharts } from "./SheetCharts";
+
+// The charting package loads after the map and the sheet: the desk is usable before it arrives.
+const SheetCharts = lazy(async () => ({ default: (await import("./SheetCharts")).SheetCharts }));
 import { SheetStatus } from "./SheetStatus";
 
 interface Props {
@@ -173,7 +176,11 @@ export function SheetPanel(props: Props) {
             ))}
           </ul>
         ) : null}
-        {shown && <SheetCharts sheet={shown} live={upToDate ? null : live.segments} />}
+        {shown && (
+          <Suspense fallback={<div className="mt-3 h-[44rem]" aria-busy="true" />}>
+            <SheetCharts sheet={shown} live={upToDate ? null : live.segments} />
+          </Suspense>
+        )}
       </div>
     </section>
   );

@@ -59,6 +59,7 @@ export function contourLayers(): LayerSpecification[] {
       type: "line",
       source: "terrain-contours",
       "source-layer": "contours",
+      layout: { visibility: "none" },
       paint: {
         "line-color": MAP_COLOURS.contourIndex,
         "line-width": ["match", ["get", "level"], 1, 1.2, 0.5],
@@ -72,6 +73,7 @@ export function contourLayers(): LayerSpecification[] {
       "source-layer": "contours",
       filter: [">", ["get", "level"], 0],
       layout: {
+        visibility: "none",
         "symbol-placement": "line",
         "text-field": ["number-format", ["get", "ele"], { "max-fraction-digits": 1 }],
         "text-font": MAP_FONT,

@@ -76,6 +76,8 @@ export async function createDeskMap(options: CreateMapOptions): Promise<maplibre
     zoom: options.bounds ? undefined : 2,
     attributionControl: { compact: true },
     dragRotate: false,
+    // Labels appear at once: no fade to wait for before the map is idle.
+    fadeDuration: 0,
     pitchWithRotate: false,
   });
   map.touchZoomRotate.disableRotation();
