@@ -56,6 +56,19 @@ describe("Map desk, engineer", () => {
     const segmentRows = page.locator("[data-segment]");
     expect(await segmentRows.count()).toBeGreaterThanOrEqual(1);
 
+    // Measure two points on the map: the length shows under the tools.
+    await page.getByRole("button", { name: "Measure" }).click();
+    for (const [fx, fy] of [
+      [0.2, 0.5],
+      [0.8, 0.5],
+    ] as const) {
+      const p = at(fx, fy);
+      await page.mouse.click(p.x, p.y);
+    }
+    await page.keyboard.press("Enter");
+    await page.getByText(/^Measured: \d+\.\d ft$/).waitFor();
+    await page.getByRole("button", { name: "Pan" }).click();
+
     // Drag the end of sheet flow along the path: the totals change.
     const marker = page.locator('[data-break="sheetEnd"]');
     await marker.waitFor();
