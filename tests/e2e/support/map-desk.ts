@@ -5,12 +5,16 @@ import { DEMO_OUT_DIR } from "../../../server/seed/demo-scenario";
 import { DEMO_PASSWORD, demoEmail } from "./demo";
 import { freshProject } from "./project";
 
-/** From the projects list to the project's Map desk, waiting for the map to be drawn. */
+/**
+ * From the projects list to the project's Map desk, waiting for the map to be drawn. Both links
+ * match their names exactly: on a database earlier runs have used, other projects' names may
+ * contain this project's name or the words "Map desk".
+ */
 export async function openMapDesk(page: Page, projectName: string): Promise<void> {
-  await page.getByRole("link", { name: projectName }).first().click();
+  await page.getByRole("link", { name: projectName, exact: true }).click();
   await page
     .getByRole("navigation", { name: "Project pages" })
-    .getByRole("link", { name: "Map desk" })
+    .getByRole("link", { name: "Map desk", exact: true })
     .click();
   await page.getByRole("heading", { level: 1, name: "Map desk" }).waitFor();
   await page.getByTestId("desk-map").locator("canvas").waitFor();
