@@ -83,6 +83,23 @@ describe("Map desk by role", () => {
     await guard.close();
   });
 
+  it("gives the engineer's desk, tools and editable cells showing, no serious axe finding", async () => {
+    const guard = await guardedContext(e2e.browser, e2e.server.url);
+    const { page } = guard;
+    await signIn(page, demoEmail("engineer"));
+    await openMapDesk(page, DEMO_PROJECT.name);
+    await waitForMapIdle(page);
+    await page.getByRole("toolbar", { name: "Drawing tools" }).waitFor();
+    await page.getByLabel("Segment 1 elevation up").waitFor();
+    await page.getByLabel("Segment 1 flow regime").waitFor();
+    // The layer panel's toggles, opacity sliders and legend are part of the page too.
+    await page.getByText("Layers and legend").click();
+    await page.getByRole("checkbox", { name: "Basemap" }).waitFor();
+    expect(await seriousAxeViolations(page)).toEqual([]);
+    expect(guard.offHostRequests).toEqual([]);
+    await guard.close();
+  });
+
   it("draws a cover layer the GIS specialist uploaded and mapped in its classes' colours", async () => {
     const { projectId, teamId, name } = await freshProject(
       e2e.browser,
