@@ -29,6 +29,12 @@ export {
   type SheetEnd,
   type SheetEndInput,
 } from "./regimes";
+export {
+  applySurfaceOverrides,
+  type SurfaceOverride,
+  type SurfaceSource,
+  type SurfacedPiece,
+} from "./surface-overrides";
 export { bilinear, sampleGrid, type ElevationGrid } from "./bilinear";
 export {
   isPathReversed,

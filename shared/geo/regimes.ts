@@ -30,10 +30,11 @@ function checkBreak(name: string, value: number | null): void {
   }
 }
 
-export function regimeSegments(
-  pieces: readonly PathPiece[],
+/** Generic so what a piece carries besides PathPiece (e.g. its surface source) comes through. */
+export function regimeSegments<P extends PathPiece>(
+  pieces: readonly P[],
   breaks: RegimeBreaks,
-): RegimeSegment[] {
+): (P & { readonly regime: FlowRegime })[] {
   checkBreak("sheetEndM", breaks.sheetEndM);
   checkBreak("channelStartM", breaks.channelStartM);
   const totalM = pieces.length > 0 ? pieces[pieces.length - 1]!.stationToM : 0;
@@ -43,7 +44,7 @@ export function regimeSegments(
   const regimeAt = (stationM: number): FlowRegime =>
     stationM < sheetM ? "sheet" : stationM < channelM ? "shallow" : "channel";
 
-  const out: RegimeSegment[] = [];
+  const out: (P & { readonly regime: FlowRegime })[] = [];
   for (const piece of pieces) {
     const cuts = [piece.stationFromM];
     for (const at of [sheetM, channelM]) {
