@@ -1,8 +1,9 @@
 /**
  * Tables of the geodata pipeline: layers and their features, the team's Surface catalog and
  * project overrides, attribute mappings, Rainfall tables, Design rules, subcatchments with their
- * flow path, regime breaks, surveyed elevations and computed results. Geometry is EPSG:4326;
- * stations, lengths and elevations are stored in metres (names say so) and shown in project units.
+ * flow path, regime breaks, surveyed elevations, surface overrides and computed results. Geometry
+ * is EPSG:4326; stations, lengths and elevations are stored in metres (names say so) and shown in
+ * project units.
  */
 import { sql } from "drizzle-orm";
 import {
@@ -264,6 +265,34 @@ export const elevationOverrides = pgTable(
     note: text("note").notNull().default(""),
   },
   (t) => [primaryKey({ columns: [t.subcatchmentId, t.stationM] })],
+);
+
+/**
+ * Stretches of the flow path the engineer says are of another surface class than the cover
+ * layer gives (stations in metres from the divide; the API keeps them from overlapping).
+ */
+export const surfaceOverrides = pgTable(
+  "surface_overrides",
+  {
+    subcatchmentId: uuid("subcatchment_id")
+      .notNull()
+      .references(() => subcatchments.id, { onDelete: "cascade" }),
+    stationFromM: doublePrecision("station_from_m").notNull(),
+    stationToM: doublePrecision("station_to_m").notNull(),
+    // No action (checked at the end of the statement, so a team's deletion still cascades):
+    // the catalog refuses to delete a class an override uses (409, naming the subcatchment).
+    surfaceClassId: uuid("surface_class_id")
+      .notNull()
+      .references(() => surfaceClasses.id, { onDelete: "no action" }),
+    note: text("note").notNull().default(""),
+  },
+  (t) => [
+    primaryKey({ columns: [t.subcatchmentId, t.stationFromM] }),
+    check(
+      "surface_overrides_stations",
+      sql`${t.stationFromM} >= 0 and ${t.stationToM} > ${t.stationFromM}`,
+    ),
+  ],
 );
 
 /** The current travel-time sheet of a subcatchment (replaced at every compute). */

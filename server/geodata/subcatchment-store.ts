@@ -14,6 +14,7 @@ import {
   regimeBreaks,
   subcatchmentResults,
   subcatchments,
+  surfaceOverrides,
 } from "../db/schema-geodata";
 import { invalidInput } from "../http/errors";
 
@@ -72,6 +73,11 @@ export async function loadSubcatchment(
     .from(elevationOverrides)
     .where(eq(elevationOverrides.subcatchmentId, id))
     .orderBy(asc(elevationOverrides.stationM));
+  const stretches = await db
+    .select()
+    .from(surfaceOverrides)
+    .where(eq(surfaceOverrides.subcatchmentId, id))
+    .orderBy(asc(surfaceOverrides.stationFromM));
   const [result] = await db
     .select({ version: subcatchmentResults.flowPathVersion })
     .from(subcatchmentResults)
@@ -105,6 +111,12 @@ export async function loadSubcatchment(
       station: toProjectLength(units, e.stationM),
       elevation: toProjectLength(units, e.elevationM),
       note: e.note,
+    })),
+    surfaceOverrides: stretches.map((o) => ({
+      stationFrom: toProjectLength(units, o.stationFromM),
+      stationTo: toProjectLength(units, o.stationToM),
+      surfaceClassId: o.surfaceClassId,
+      note: o.note,
     })),
     lengthUnit: units === "si" ? "m" : "ft",
     computedVersion: result?.version ?? null,

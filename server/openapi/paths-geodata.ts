@@ -18,6 +18,7 @@ import {
   createSubcatchmentBody,
   putBreaksBody,
   putElevationsBody,
+  putSurfaceOverridesBody,
   putFlowPathBody,
   subcatchmentSchema,
   updateSubcatchmentBody,
@@ -71,7 +72,7 @@ export function registerGeodataPaths(d: ApiDocs): void {
     response: surfaceClassSchema,
   });
   d.route("delete", "/surface-classes/:id", {
-    summary: "Delete a surface class (409 while a layer mapping uses it)",
+    summary: "Delete a surface class (409 while a layer mapping or a surface override uses it)",
     tag: "Surface catalog",
     permission: "catalog:edit",
     status: 204,
@@ -226,6 +227,14 @@ export function registerGeodataPaths(d: ApiDocs): void {
     tag: "Subcatchments",
     permission: "geometry:edit",
     body: putElevationsBody,
+    response: sub,
+  });
+  d.route("put", "/subcatchments/:id/surface-overrides", {
+    summary:
+      "Replace the surface overrides: stretches of the path given a class of the team's catalog (project length unit; the path's version, 409 when stale)",
+    tag: "Subcatchments",
+    permission: "geometry:edit",
+    body: putSurfaceOverridesBody,
     response: sub,
   });
 

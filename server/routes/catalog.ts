@@ -30,6 +30,7 @@ import {
 import { loadViaTeam, paramId } from "../geodata/access";
 import { ensureTeamCatalog } from "../geodata/catalog-seed";
 import { projectClasses, teamClasses, toSurfaceClassDto } from "../geodata/catalog-store";
+import { subcatchmentsOverridingWith } from "../geodata/surface-override-store";
 import { HttpError, invalidInput, notFound } from "../http/errors";
 import { validate, validateParam } from "../http/validate";
 import type { RouteDeps } from "./deps";
@@ -130,6 +131,15 @@ export function catalogRouter({ db }: RouteDeps): Router {
             409,
             "class_in_use",
             `This surface class is used by the mapping of ${used.length === 1 ? "layer" : "layers"} ${names}. Map those values to another class first.`,
+          );
+        }
+        const overriding = await subcatchmentsOverridingWith(tx, id);
+        if (overriding.length > 0) {
+          const names = overriding.map((n) => `"${n}"`).join(", ");
+          throw new HttpError(
+            409,
+            "class_in_use",
+            `This surface class is given to a stretch of the flow path of ${overriding.length === 1 ? "subcatchment" : "subcatchments"} ${names}. Change those surface overrides first.`,
           );
         }
         await tx.delete(surfaceClasses).where(eq(surfaceClasses.id, id));

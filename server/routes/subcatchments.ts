@@ -1,7 +1,7 @@
 /**
  * Subcatchments of a project: boundary, outlet, channel fields, the longest flow path under a
- * version (409 on a stale one), regime breaks and surveyed elevations. Stations and elevations in
- * bodies are in the project's length unit; they are stored in metres.
+ * version (409 on a stale one), regime breaks, surveyed elevations and surface overrides.
+ * Stations and elevations in bodies are in the project's length unit; they are stored in metres.
  */
 import { and, asc, eq, sql } from "drizzle-orm";
 import { Router, type Request } from "express";
@@ -10,6 +10,7 @@ import {
   putBreaksBody,
   putElevationsBody,
   putFlowPathBody,
+  putSurfaceOverridesBody,
   updateSubcatchmentBody,
   versionBody,
 } from "../../shared/schemas/subcatchments";
@@ -30,6 +31,7 @@ import {
   touchFlowPath,
   writeFlowPath,
 } from "../geodata/flow-path-store";
+import { reverseSurfaceOverrides, writeSurfaceOverrides } from "../geodata/surface-override-store";
 import {
   checkBoundary,
   geomFromJson,
@@ -155,8 +157,8 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
     await db.transaction(async (tx) => {
       await reverseFlowPath(tx, id, body.version, currentUser(req).id);
       // Breaks say where sheet flow ends and channel flow starts, counted from the divide:
-      // reversed, they would mean something else, so they go. Surveyed points stay where they
-      // are on the ground: their stations are counted from the new divide.
+      // reversed, they would mean something else, so they go. Surveyed points and surface
+      // overrides stay where they are on the ground: their stations count from the new divide.
       await tx.delete(regimeBreaks).where(eq(regimeBreaks.subcatchmentId, id));
       const [len] = await tx
         .select({ m: sql<number>`ST_Length(${flowPaths.geom}::geography)` })
@@ -173,6 +175,7 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
           .insert(elevationOverrides)
           .values(points.map((p) => ({ ...p, stationM: Math.max(0, totalM - p.stationM) })));
       }
+      await reverseSurfaceOverrides(tx, id, totalM);
     });
     res.json(await answerSubcatchment(db, req));
   });
@@ -233,6 +236,20 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
         );
       }
     });
+    res.json(await answerSubcatchment(db, req));
+  });
+
+  router.put("/subcatchments/:id/surface-overrides", ...edit, async (req, res) => {
+    const body = validate(putSurfaceOverridesBody, req.body);
+    await db.transaction((tx) =>
+      writeSurfaceOverrides(tx, {
+        subcatchmentId: paramId(req),
+        teamId: currentProject(req).teamId,
+        units: unitsOf(req),
+        body,
+        userId: currentUser(req).id,
+      }),
+    );
     res.json(await answerSubcatchment(db, req));
   });
 

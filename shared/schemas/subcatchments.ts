@@ -1,7 +1,7 @@
 /**
- * Subcatchments, their longest flow path (divide → outlet), regime breaks and surveyed
- * elevations. Geometry is GeoJSON in WGS84 longitude/latitude. Stations and elevations in bodies
- * are in the project's length unit (ft or m) and stored in metres.
+ * Subcatchments, their longest flow path (divide → outlet), regime breaks, surveyed elevations
+ * and surface overrides. Geometry is GeoJSON in WGS84 longitude/latitude. Stations and
+ * elevations in bodies are in the project's length unit (ft or m) and stored in metres.
  */
 import { z } from "zod";
 import { sectionSchema } from "../hydrology/input-schema";
@@ -121,6 +121,50 @@ export const putElevationsBody = z.strictObject({
     ),
 });
 
+/** A stretch of the path said to be of one surface class (stations in the project's unit). */
+export const surfaceOverrideEntry = z.strictObject({
+  stationFrom: station,
+  stationTo: station,
+  surfaceClassId: idSchema,
+  note: z.string().trim().max(500, "Use at most 500 characters.").default(""),
+});
+
+/** Replaces every surface override; a change of the path, so it takes the path's version. */
+export const putSurfaceOverridesBody = z.strictObject({
+  entries: z
+    .array(surfaceOverrideEntry)
+    .max(1000, "Use at most 1,000 overrides.")
+    .superRefine((entries, ctx) => {
+      entries.forEach((e, i) => {
+        if (!(e.stationTo > e.stationFrom)) {
+          ctx.addIssue({
+            code: "custom",
+            path: [i, "stationTo"],
+            message: `Override ${i + 1}: station to (${e.stationTo}) must be greater than station from (${e.stationFrom}).`,
+          });
+        }
+      });
+      // In order of start, each must begin at or past the furthest end of those before it.
+      const order = entries
+        .map((e, i) => ({ ...e, i }))
+        .sort((a, b) => a.stationFrom - b.stationFrom);
+      let reach = order[0];
+      for (const cur of order.slice(1)) {
+        if (!reach) break;
+        if (cur.stationFrom < reach.stationTo) {
+          ctx.addIssue({
+            code: "custom",
+            path: [cur.i, "stationFrom"],
+            message: `Override ${cur.i + 1} (from ${cur.stationFrom}) overlaps override ${reach.i + 1} (${reach.stationFrom} to ${reach.stationTo}).`,
+          });
+        }
+        if (cur.stationTo > reach.stationTo) reach = cur;
+      }
+    }),
+  version,
+});
+export type PutSurfaceOverridesBody = z.input<typeof putSurfaceOverridesBody>;
+
 export const flowPathSchema = z.object({
   geometry: lineStringSchema,
   version: z.number().int(),
@@ -140,6 +184,15 @@ export const subcatchmentSchema = z.object({
   flowPath: flowPathSchema.nullable(),
   breaks: z.object({ sheetEnd: z.number().nullable(), channelStart: z.number().nullable() }),
   elevations: z.array(z.object({ station: z.number(), elevation: z.number(), note: z.string() })),
+  /** Stretches given another surface class than the cover layer's, in station order. */
+  surfaceOverrides: z.array(
+    z.object({
+      stationFrom: z.number(),
+      stationTo: z.number(),
+      surfaceClassId: idSchema,
+      note: z.string(),
+    }),
+  ),
   /** The length unit of stations and elevations above ("ft" or "m"). */
   lengthUnit: z.enum(["ft", "m"]),
   /** Path version of the stored sheet, or null when never computed. */

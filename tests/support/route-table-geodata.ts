@@ -430,6 +430,19 @@ export const GEODATA_ROUTE_CASES: RouteCase[] = [
     expected: engineerEdit(200),
   },
   {
+    method: "put",
+    route: "/api/subcatchments/:id/surface-overrides",
+    teamScoped: true,
+    prepare: async (f) => ({
+      path: `/api/subcatchments/${await freshSub(f, true)}/surface-overrides`,
+      body: {
+        entries: [{ stationFrom: 1, stationTo: 5, surfaceClassId: await anyClass(f) }],
+        version: 1,
+      },
+    }),
+    expected: engineerEdit(200),
+  },
+  {
     method: "post",
     route: "/api/subcatchments/:id/compute",
     teamScoped: true,
