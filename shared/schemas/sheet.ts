@@ -11,6 +11,8 @@ const num = z.number();
 const maybe = num.nullable();
 
 export const ELEVATION_SOURCES = ["terrain", "survey", "mixed"] as const;
+/** Sheets stored before overrides existed have no source: their classes are the cover layer's. */
+export const SURFACE_SOURCES = ["cover-layer", "override"] as const;
 
 export const sheetSegmentSchema = z.object({
   index: z.number().int(),
@@ -24,6 +26,8 @@ export const sheetSegmentSchema = z.object({
   surfaceClassId: z.string().nullable(),
   surfaceClassKey: z.string().nullable(),
   surfaceClassName: z.string().nullable(),
+  /** Where the class came from: the cover layer, or the engineer's override of the stretch. */
+  surfaceSource: z.enum(SURFACE_SOURCES).default("cover-layer"),
   /** Soil group as mapped (dual groups kept) and as used after the design rule. */
   hsgMapped: z.string().nullable(),
   hsg: z.enum(["A", "B", "C", "D"]).nullable(),

@@ -109,6 +109,16 @@ describe("segment rows", () => {
     expect(rows[0]?.surfaceClassName).toBeNull();
     expect(rows[0]?.error).toMatch(/No mapped surface class/);
   });
+
+  it("says where each row's class came from, the cover layer unless the engineer overrode it", () => {
+    const { rows } = buildRows(
+      [source({}), source({ stationFromM: 30, stationToM: 60, surfaceSource: "override" })],
+      { units: "us", classes, dualHsg: "drained", channel: null },
+    );
+    expect(rows.map((r) => r.surfaceSource)).toEqual(["cover-layer", "override"]);
+    // An overridden row reads the overriding class's published values like any other row.
+    expect(rows[1]?.n).toBe(lawn.values.sheetFlowN?.value);
+  });
 });
 
 describe("sheet assembly", () => {
@@ -170,6 +180,18 @@ describe("sheet assembly", () => {
     expect(t.totals[0]).toBe("Total");
     expect(t.totals[t.titles.indexOf("Length")]).toBe(90);
     expect(t.header.find((h) => h[0] === "Caution")?.[1]).toMatch(/engineer of record govern/);
+  });
+
+  it("prints each row's surface source in the exported table", () => {
+    const t = sheetTable({
+      ...sheet,
+      segments: sheet.segments.map((r, i) => ({
+        ...r,
+        surfaceSource: i === 1 ? ("override" as const) : r.surfaceSource,
+      })),
+    });
+    const col = t.titles.indexOf("Surface source");
+    expect(t.rows.map((r) => r[col])).toEqual(["cover layer", "override"]);
   });
 
   it("prints a method's validity range beside a result outside it", () => {

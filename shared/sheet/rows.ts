@@ -4,6 +4,7 @@
  * slope; a segment that cannot be computed carries the reason instead of a number. The rows also
  * give the engineering core's segment input, in the project's units.
  */
+import type { SurfaceSource } from "../geo/surface-overrides";
 import type { HsgCode } from "../geo/types";
 import type { SegmentInput } from "../hydrology/input-schema";
 import { ftFromM, mFromFt, type UnitSystem } from "../hydrology/units";
@@ -19,6 +20,8 @@ export interface RowSource {
   readonly lengthM: number;
   readonly regime: "sheet" | "shallow" | "channel";
   readonly surfaceClassId: string | null;
+  /** Absent: the cover layer's class. */
+  readonly surfaceSource?: SurfaceSource;
   readonly hsg: HsgCode | null;
   readonly elevationUpM: number | null;
   readonly elevationDownM: number | null;
@@ -93,7 +96,10 @@ export function buildRows(sources: readonly RowSource[], ctx: RowContext): Built
       const msg =
         "No mapped surface class here: the path runs outside every cover polygon or over an unmapped value.";
       if (src.regime === "channel") warnings.push(msg);
-      else errors.push(`${msg} Map the cover layer's values or extend the cover layer.`);
+      else
+        errors.push(
+          `${msg} Map the cover layer's values, extend the cover layer, or give the stretch a surface on the sheet.`,
+        );
     }
     if (hsg === null)
       warnings.push("No soil group here: the curve number falls back to the subcatchment's.");
@@ -152,6 +158,7 @@ export function buildRows(sources: readonly RowSource[], ctx: RowContext): Built
       surfaceClassId: cls?.id ?? null,
       surfaceClassKey: cls?.key ?? null,
       surfaceClassName: cls?.name ?? null,
+      surfaceSource: src.surfaceSource ?? "cover-layer",
       hsgMapped: src.hsg,
       hsg,
       n,

@@ -48,6 +48,12 @@ export function sheetColumns(sheet: TravelTimeSheet): SheetColumn[] {
       unit: "",
       value: (r) => r.surfaceClassName ?? "unmapped",
     },
+    {
+      key: "surfaceSource",
+      title: "Surface source",
+      unit: "",
+      value: (r) => (r.surfaceSource === "override" ? "override" : "cover layer"),
+    },
     { key: "hsg", title: "Soil group", unit: "", value: (r) => r.hsg },
     { key: "n", title: "Manning n", unit: "", format: "0.000", value: (r) => r.n ?? r.manningN },
     {

@@ -1,11 +1,17 @@
 /**
  * Everything a compute needs, read in one go: the flow path and its version, breaks, surveyed
- * points, the subcatchment's fields, the project's rules, rainfall and catalog, and the layer
+ * points, surface overrides, the subcatchment's fields, the project's rules, rainfall and catalog, and the layer
  * features near the path (a PostGIS bounding-box query on the GiST index, never the whole layer).
  */
 import { and, asc, desc, eq, sql } from "drizzle-orm";
 import type { Geometry } from "geojson";
-import type { HsgCode, LonLat, PolygonRings, ValuedPolygon } from "../../../shared/geo";
+import type {
+  HsgCode,
+  LonLat,
+  PolygonRings,
+  SurfaceOverride,
+  ValuedPolygon,
+} from "../../../shared/geo";
 import { HSG_CODES } from "../../../shared/geo";
 import type { IdfInput } from "../../../shared/hydrology";
 import type { SurfaceValues } from "../../../shared/schemas/catalog";
@@ -20,6 +26,7 @@ import {
   rainfallTables,
   regimeBreaks,
   subcatchments,
+  surfaceOverrides,
 } from "../../db/schema-geodata";
 import { projectClasses } from "../catalog-store";
 import { loadDesignRules } from "../design-rules-store";
@@ -41,6 +48,8 @@ export interface ComputeData {
   readonly pathVersion: number;
   readonly breaks: { sheetEndM: number | null; channelStartM: number | null };
   readonly surveyed: { stationM: number; elevationM: number }[];
+  /** Stretches the engineer gave another surface class, in station order. */
+  readonly surfaceOverrides: SurfaceOverride[];
   readonly rules: DesignRules;
   readonly rainfall: RainfallChoice | null;
   readonly rainfallProblem: string | null;
@@ -101,39 +110,52 @@ export async function loadComputeData(
   subcatchmentId: string,
 ): Promise<ComputeData> {
   // Independent reads, side by side (a compute should answer in tens of milliseconds).
-  const [[sub], [fp], breakRows, surveyed, rules, classRows, [terrain]] = await Promise.all([
-    db
-      .select({
-        s: subcatchments,
-        boundary: sql<string | null>`ST_AsGeoJSON(${subcatchments.boundary}, 15)`,
-      })
-      .from(subcatchments)
-      .where(eq(subcatchments.id, subcatchmentId)),
-    db
-      .select({ g: sql<string>`ST_AsGeoJSON(${flowPaths.geom}, 15)`, version: flowPaths.version })
-      .from(flowPaths)
-      .where(eq(flowPaths.subcatchmentId, subcatchmentId)),
-    db.select().from(regimeBreaks).where(eq(regimeBreaks.subcatchmentId, subcatchmentId)),
-    db
-      .select({ stationM: elevationOverrides.stationM, elevationM: elevationOverrides.elevationM })
-      .from(elevationOverrides)
-      .where(eq(elevationOverrides.subcatchmentId, subcatchmentId))
-      .orderBy(asc(elevationOverrides.stationM)),
-    loadDesignRules(db, project.id),
-    projectClasses(db, project.teamId, project.id),
-    db
-      .select({ objectKey: layers.objectKey, info: layers.terrain, name: layers.name })
-      .from(layers)
-      .where(
-        and(
-          eq(layers.projectId, project.id),
-          eq(layers.kind, "terrain"),
-          eq(layers.status, "ready"),
-        ),
-      )
-      .orderBy(desc(layers.createdAt))
-      .limit(1),
-  ]);
+  const [[sub], [fp], breakRows, surveyed, overrides, rules, classRows, [terrain]] =
+    await Promise.all([
+      db
+        .select({
+          s: subcatchments,
+          boundary: sql<string | null>`ST_AsGeoJSON(${subcatchments.boundary}, 15)`,
+        })
+        .from(subcatchments)
+        .where(eq(subcatchments.id, subcatchmentId)),
+      db
+        .select({ g: sql<string>`ST_AsGeoJSON(${flowPaths.geom}, 15)`, version: flowPaths.version })
+        .from(flowPaths)
+        .where(eq(flowPaths.subcatchmentId, subcatchmentId)),
+      db.select().from(regimeBreaks).where(eq(regimeBreaks.subcatchmentId, subcatchmentId)),
+      db
+        .select({
+          stationM: elevationOverrides.stationM,
+          elevationM: elevationOverrides.elevationM,
+        })
+        .from(elevationOverrides)
+        .where(eq(elevationOverrides.subcatchmentId, subcatchmentId))
+        .orderBy(asc(elevationOverrides.stationM)),
+      db
+        .select({
+          stationFromM: surfaceOverrides.stationFromM,
+          stationToM: surfaceOverrides.stationToM,
+          surfaceClassId: surfaceOverrides.surfaceClassId,
+        })
+        .from(surfaceOverrides)
+        .where(eq(surfaceOverrides.subcatchmentId, subcatchmentId))
+        .orderBy(asc(surfaceOverrides.stationFromM)),
+      loadDesignRules(db, project.id),
+      projectClasses(db, project.teamId, project.id),
+      db
+        .select({ objectKey: layers.objectKey, info: layers.terrain, name: layers.name })
+        .from(layers)
+        .where(
+          and(
+            eq(layers.projectId, project.id),
+            eq(layers.kind, "terrain"),
+            eq(layers.status, "ready"),
+          ),
+        )
+        .orderBy(desc(layers.createdAt))
+        .limit(1),
+    ]);
   if (!sub) throw new Error(`subcatchment ${subcatchmentId} vanished`);
   const path = fp
     ? (JSON.parse(fp.g) as { coordinates: number[][] }).coordinates.map(toLonLat)
@@ -179,6 +201,7 @@ export async function loadComputeData(
       channelStartM: breakRows.find((b) => b.kind === "channel-start")?.stationM ?? null,
     },
     surveyed,
+    surfaceOverrides: overrides,
     rules,
     rainfall,
     rainfallProblem,

@@ -1,9 +1,11 @@
 /**
- * The flow path's geometry work for a compute: split by cover and soil, regime breaks, terrain
- * samples at every station the slopes and the profile need (one batched read), surveyed points
- * taking over, slopes per segment. Pure apart from the terrain read.
+ * The flow path's geometry work for a compute: split by cover and soil, the engineer's surface
+ * overrides, regime breaks, terrain samples at every station the slopes and the profile need
+ * (one batched read), surveyed points taking over, slopes per segment. Pure apart from the
+ * terrain read.
  */
 import {
+  applySurfaceOverrides,
   buildPolygonIndex,
   firstCrossingStationM,
   isPathReversed,
@@ -62,6 +64,8 @@ export async function pathProfile(
     buildPolygonIndex(data.soil),
     lengths,
   );
+  // The engineer's surface overrides act on the split; `pieces` stays the cover layer's own.
+  const surfaced = applySurfaceOverrides(pieces, data.surfaceOverrides);
 
   // Terrain at every station asked for: segment ends, the top 100 ft (McCuen–Spiess), profile.
   const samples = new Map<number, number | null>();
@@ -80,7 +84,7 @@ export async function pathProfile(
   const rules = resolveRules(data.rules.rules, units, data.project.designReturnPeriodYears);
   const topM = Math.min(totalM, 30.48);
   await sample([0, topM, totalM]);
-  const first = pieces[0];
+  const first = surfaced[0];
   const topN = first?.surfaceClassId
     ? data.classes.get(first.surfaceClassId)?.values.sheetFlowN?.value
     : undefined;
@@ -105,7 +109,7 @@ export async function pathProfile(
   if (sheetEndM !== null && channelStartM !== null && sheetEndM > channelStartM)
     sheetEndM = channelStartM;
 
-  const segments = regimeSegments(pieces, { sheetEndM, channelStartM }).filter(
+  const segments = regimeSegments(surfaced, { sheetEndM, channelStartM }).filter(
     (s) => s.lengthM > 0,
   );
   const tenEightyFive = data.rules.channelSlope === "10-85";
@@ -126,6 +130,7 @@ export async function pathProfile(
       lengthM: s.lengthM,
       regime: s.regime,
       surfaceClassId: s.surfaceClassId,
+      surfaceSource: s.surfaceSource,
       hsg: s.hsg,
       elevationUpM: from?.elevationM ?? null,
       elevationDownM: to?.elevationM ?? null,
