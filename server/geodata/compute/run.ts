@@ -128,7 +128,7 @@ export async function computeSheet(
     if (opened.problem) problems.push(opened.problem);
     if (profile.reversed) {
       problems.push(
-        "The outlet end of the path is higher than its top: the path seems drawn the wrong way. Reverse it (POST …/flow-path/reverse) or check the terrain.",
+        "The outlet end of the path is higher than its top: the path seems drawn the wrong way. Reverse it (Reverse path on the Map desk, or POST …/flow-path/reverse) or check the terrain.",
       );
     }
     let result: ComputeResult | null = null;

@@ -14,6 +14,7 @@ import type { usePathAutosave } from "../lib/use-path-autosave";
 import { LivePreview } from "./LivePreview";
 import { MethodTotals } from "./MethodTotals";
 import { SegmentTable } from "./SegmentTable";
+import { SheetFigures } from "./SheetFigures";
 
 // The charting package loads after the map and the sheet: the desk is usable before it arrives.
 const SheetCharts = lazy(async () => ({ default: (await import("./SheetCharts")).SheetCharts }));
@@ -125,6 +126,13 @@ export function SheetPanel(props: Props) {
             ({shown.governing.tcHr.toFixed(3)} h) by {shown.governing.label}.{" "}
             {shown.governing.reason}
           </p>
+        )}
+        {shown && (
+          <SheetFigures
+            sheet={shown}
+            onReverse={props.canEdit ? () => void edits.reversePath() : undefined}
+            busy={edits.busy || props.computing}
+          />
         )}
         {shown && shown.problems.length > 0 && (
           <ul className="mb-2 list-disc pl-5 text-xs text-brick-700">
