@@ -16,6 +16,8 @@ import { initialBounds } from "../lib/initial-bounds";
 import { usePathAutosave } from "../lib/use-path-autosave";
 import { useDeskDraw } from "../lib/use-desk-draw";
 import { useDeskEdits } from "../lib/use-desk-edits";
+import { useDeskHistory } from "../lib/use-desk-history";
+import type { BreakChange } from "../lib/regime-edit";
 import { useLiveSplit } from "../lib/use-live-split";
 import { useOverlays } from "../lib/use-overlays";
 import type { DrawTool } from "../map/draw";
@@ -43,8 +45,28 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
     () => queryClient.fetchQuery({ ...subcatchmentQueryOptions(subcatchment.id), staleTime: 0 }),
     [queryClient, subcatchment.id],
   );
-  const autosave = usePathAutosave(subcatchment, recompute, refetch);
-  const edits = useDeskEdits(subcatchment, project.id, recompute);
+  const history = useDeskHistory((change, side) => {
+    if (change.kind === "path") {
+      const coords = [...change[side]];
+      draw?.load("path", coords);
+      autosave.restore(coords);
+    } else void saved.moveBreaks(change[side]);
+  });
+  const autosave = usePathAutosave(subcatchment, recompute, refetch, (before, after) =>
+    history.record({ kind: "path", before, after }),
+  );
+  const saved = useDeskEdits(subcatchment, project.id, recompute);
+  // Break moves (dragged on the map or by a regime chosen in the sheet) go into the history.
+  const edits = {
+    ...saved,
+    moveBreaks: (change: BreakChange) => {
+      const before: BreakChange = {};
+      if (change.sheetEnd !== undefined) before.sheetEnd = subcatchment.breaks.sheetEnd;
+      if (change.channelStart !== undefined) before.channelStart = subcatchment.breaks.channelStart;
+      history.record({ kind: "breaks", before, after: change });
+      return saved.moveBreaks(change);
+    },
+  };
   const [map, setMap] = useState<MapLibreMap | null>(null);
   const [hovered, setHovered] = useState<number | null>(null);
   const [units, setUnits] = useState<UnitSystem>(project.units === "si" ? "si" : "us");
@@ -95,7 +117,7 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
     measure,
   });
 
-  const { draw, history } = useDeskDraw(map, canEdit, subcatchment, autosave.draft !== null, {
+  const { draw } = useDeskDraw(map, canEdit, subcatchment, autosave.draft !== null, {
     onPath: (coords, settled) => {
       autosave.edit(coords, settled);
       // A finished trace hands the map back to panning, so the next click starts nothing.
@@ -123,6 +145,8 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
     const station = subcatchment.lengthUnit === "ft" ? stationM / mFromFt(1) : stationM;
     void edits.moveBreaks({ [kind]: Math.round(station * 100) / 100 });
   };
+  // Undo and redo wait for the edit in hand to be saved: they replace the whole path.
+  const busy = edits.busy || autosave.saving || autosave.draft !== null;
   const terrain = newestReady(layers, "terrain");
   // The first view: the subcatchment (boundary and path), else every layer's extent.
   const [bounds] = useState(() => initialBounds(subcatchment, layers));
@@ -134,9 +158,12 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
           <DeskToolbar
             tool={tool}
             onTool={chooseTool}
-            onUndo={() => draw?.undo()}
-            onRedo={() => draw?.redo()}
-            history={history}
+            onUndo={history.undo}
+            onRedo={history.redo}
+            history={{
+              canUndo: history.canUndo && !busy,
+              canRedo: history.canRedo && !busy,
+            }}
             onReverse={reverse}
             onFile={(what, file) => void edits.loadFile({ what, file })}
             measure={measure}

@@ -13,10 +13,9 @@ export function useDeskDraw(
   enabled: boolean,
   subcatchment: Subcatchment,
   hasDraft: boolean,
-  events: Omit<DrawEvents, "onHistory">,
+  events: DrawEvents,
 ) {
   const [draw, setDraw] = useState<DeskDraw | null>(null);
-  const [history, setHistory] = useState({ canUndo: false, canRedo: false });
   const eventsRef = useRef(events);
   useEffect(() => {
     eventsRef.current = events;
@@ -29,7 +28,6 @@ export function useDeskDraw(
       onArea: (r) => eventsRef.current.onArea(r),
       onOutlet: (p) => eventsRef.current.onOutlet(p),
       onMeasure: (c) => eventsRef.current.onMeasure(c),
-      onHistory: setHistory,
     });
     setDraw(made);
     return () => {
@@ -53,5 +51,5 @@ export function useDeskDraw(
     draw.load("outlet", outlet ? [outlet.coordinates as unknown as LonLat] : null);
   }, [draw, boundary, outlet]);
 
-  return { draw, history };
+  return { draw };
 }

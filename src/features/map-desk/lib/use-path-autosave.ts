@@ -2,7 +2,8 @@
  * The flow path being edited: a local draft that the live split shows at once, saved when the
  * engineer pauses (600 ms) under the version it started from, then computed. A 409 (someone
  * saved in between) keeps the draft and asks: keep mine (save over the new version) or take
- * the saved path. Nothing is dropped silently.
+ * the saved path. Nothing is dropped silently. Each saved edit is reported with the path it
+ * replaced (for undo); a path put back by undo or redo is saved without being reported again.
  */
 import { useCallback, useEffect, useRef, useState } from "react";
 import type { LonLat } from "../../../../shared/geo";
@@ -21,6 +22,7 @@ export function usePathAutosave(
   subcatchment: Subcatchment,
   afterSave: () => Promise<unknown>,
   refetch: () => Promise<Subcatchment | undefined>,
+  onSaved?: (before: readonly LonLat[], after: readonly LonLat[]) => void,
 ) {
   const [draft, setDraft] = useState<LonLat[] | null>(null);
   const [settled, setSettled] = useState(true);
@@ -31,12 +33,24 @@ export function usePathAutosave(
   versionRef.current = subcatchment.flowPath?.version ?? 0;
   const draftRef = useRef(draft);
   draftRef.current = draft;
+  const savedRef = useRef<LonLat[]>([]);
+  savedRef.current = (subcatchment.flowPath?.geometry.coordinates ?? []).map(([x, y]): LonLat => [
+    x,
+    y,
+  ]);
+  // The saved path when the current draft began, and whether undo or redo made the draft.
+  const baseRef = useRef<LonLat[]>([]);
+  const quietRef = useRef(false);
+  const onSavedRef = useRef(onSaved);
+  onSavedRef.current = onSaved;
 
   const send = useCallback(
     async (coords: LonLat[], version: number) => {
       setError(null);
       try {
         await save.mutateAsync({ coordinates: coords, version });
+        if (!quietRef.current) onSavedRef.current?.(baseRef.current, coords);
+        baseRef.current = coords;
         // A newer edit made while this one was on its way stays as the draft.
         if (draftRef.current === coords) setDraft(null);
         await afterSave();
@@ -59,8 +73,19 @@ export function usePathAutosave(
   }, [draft, settled, conflict, send]);
 
   const edit = useCallback((coords: LonLat[], isSettled: boolean) => {
+    if (draftRef.current === null) baseRef.current = savedRef.current;
+    // A drawing edit on top of a put-back path is the engineer's own change again.
+    quietRef.current = false;
     setDraft(coords);
     setSettled(isSettled);
+  }, []);
+
+  /** Puts a path back (undo, redo): saved like an edit, not reported as a new one. */
+  const restore = useCallback((coords: LonLat[]) => {
+    baseRef.current = savedRef.current;
+    quietRef.current = true;
+    setDraft(coords);
+    setSettled(true);
   }, []);
 
   const keepMine = useCallback(() => {
@@ -75,5 +100,5 @@ export function usePathAutosave(
     setDraft(null);
   }, []);
 
-  return { draft, edit, conflict, keepMine, takeSaved, saving: save.isPending, error };
+  return { draft, edit, restore, conflict, keepMine, takeSaved, saving: save.isPending, error };
 }

@@ -1,7 +1,7 @@
 /**
  * Drawing on the Map desk with terra-draw and its maplibre adapter: tracing and editing the
- * flow path, outlining the subcatchment, placing the outlet and measuring. Undo and redo are
- * terra-draw's session history. Features loaded from the server do not count as edits.
+ * flow path, outlining the subcatchment, placing the outlet and measuring. Undo and redo are the
+ * desk's own (lib/desk-history.ts): they work on saved versions, which terra-draw cannot see.
  */
 import type { Map as MapLibreMap } from "maplibre-gl";
 import {
@@ -11,7 +11,6 @@ import {
   TerraDrawPolygonMode,
   TerraDrawRenderMode,
   TerraDrawSelectMode,
-  TerraDrawSessionUndoRedo,
   type GeoJSONStoreFeatures,
 } from "terra-draw";
 import { TerraDrawMapLibreGLAdapter } from "terra-draw-maplibre-gl-adapter";
@@ -26,7 +25,6 @@ export interface DrawEvents {
   onArea(ring: LonLat[]): void;
   onOutlet(point: LonLat): void;
   onMeasure(coords: LonLat[]): void;
-  onHistory(state: { canUndo: boolean; canRedo: boolean }): void;
 }
 
 const INK = MAP_COLOURS.subcatchment as `#${string}`;
@@ -82,7 +80,6 @@ export class DeskDraw {
           },
         }),
       ],
-      undoRedo: { sessionLevel: new TerraDrawSessionUndoRedo() },
     });
     this.draw.start();
     this.draw.on("change", (changed) => this.changed(changed as string[]));
@@ -95,13 +92,15 @@ export class DeskDraw {
 
   private changed(changed: string[]) {
     if (this.loading) return;
-    this.reportHistory();
     for (const id of changed) {
       const f = this.draw.getSnapshotFeature(id);
       const mode = f?.properties.mode;
       const kind = this.kindOf(id);
-      if (kind === "path") this.events.onPath(coordsOf(f), true);
-      else if (mode === "trace" && this.draw.getMode() === "trace") {
+      // A path with fewer than two points left (its feature deleted) is not a path to save.
+      if (kind === "path") {
+        const coords = coordsOf(f);
+        if (coords.length >= 2) this.events.onPath(coords, true);
+      } else if (mode === "trace" && this.draw.getMode() === "trace") {
         this.events.onPath(coordsOf(f), false);
       } else if (mode === "measure") this.events.onMeasure(coordsOf(f));
     }
@@ -135,11 +134,6 @@ export class DeskDraw {
       const [point] = coordsOf(f);
       if (point) this.events.onOutlet(point);
     }
-    this.reportHistory();
-  }
-
-  private reportHistory() {
-    this.events.onHistory({ canUndo: this.draw.canUndo(), canRedo: this.draw.canRedo() });
   }
 
   setTool(tool: DrawTool) {
@@ -177,21 +171,6 @@ export class DeskDraw {
     this.draw.setMode("edit");
     if (this.ids.path && this.draw.hasFeature(this.ids.path))
       this.draw.selectFeature(this.ids.path);
-  }
-
-  clearHistory() {
-    this.draw.clearUndoRedoHistory();
-    this.reportHistory();
-  }
-
-  undo() {
-    this.draw.undo();
-    this.reportHistory();
-  }
-
-  redo() {
-    this.draw.redo();
-    this.reportHistory();
   }
 
   destroy() {
