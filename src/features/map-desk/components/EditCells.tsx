@@ -89,3 +89,50 @@ export function RegimeCell({
     </select>
   );
 }
+
+/**
+ * The surface of one segment: the class from the cover layer, or one the engineer chose for the
+ * stretch. Choosing the first option gives the stretch back to the cover layer.
+ */
+export function SurfaceCell({
+  label,
+  segment,
+  classes,
+  onChange,
+}: {
+  label: string;
+  segment: {
+    surfaceClassId: string | null;
+    surfaceClassName: string | null;
+    surfaceSource: "cover-layer" | "override";
+  };
+  classes: readonly { id: string; name: string }[];
+  onChange: (surfaceClassId: string | null) => void;
+}) {
+  const overridden = segment.surfaceSource === "override";
+  const value = overridden ? (segment.surfaceClassId ?? "") : "";
+  return (
+    <select
+      aria-label={label}
+      value={value}
+      onChange={(e) => onChange(e.target.value === "" ? null : e.target.value)}
+      title={
+        overridden ? "Chosen for this stretch (overrides the cover layer)" : "From the cover layer"
+      }
+      className={`max-w-44 rounded border px-1 py-0.5 text-xs ${
+        overridden ? "border-rill-500 bg-rill-50" : "border-ink-200 bg-white"
+      }`}
+    >
+      <option value="">
+        {overridden
+          ? "From the cover layer"
+          : `${segment.surfaceClassName ?? "unmapped"} (cover layer)`}
+      </option>
+      {classes.map((c) => (
+        <option key={c.id} value={c.id}>
+          {c.name}
+        </option>
+      ))}
+    </select>
+  );
+}

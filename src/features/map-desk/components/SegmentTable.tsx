@@ -1,7 +1,7 @@
 import type { FlowRegime } from "../../../../shared/geo";
 import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
 import { sheetColumns, sheetTable, type Cell } from "../../../../shared/sheet/table";
-import { ElevationCell, RegimeCell } from "./EditCells";
+import { ElevationCell, RegimeCell, SurfaceCell } from "./EditCells";
 
 interface Props {
   /** The sheet in the units shown. */
@@ -12,6 +12,10 @@ interface Props {
   onRegime: (index: number, regime: FlowRegime) => void;
   /** Elevation typed at a segment end, in the units shown. */
   onElevation: (index: number, end: "up" | "down", value: number) => void;
+  /** The team's classes (as the project sees them) for the Surface cell. */
+  classes?: readonly { id: string; name: string }[];
+  /** A class chosen for the segment's stretch; null gives it back to the cover layer. */
+  onSurface?: (index: number, surfaceClassId: string | null) => void;
 }
 
 const decimalsOf = (format: string | undefined) => (format?.split(".")[1] ?? "").length;
@@ -23,7 +27,8 @@ function show(value: Cell, format: string | undefined): string {
 }
 
 /** The travel-time sheet's segment rows, the same columns and rounding as the exports. */
-export function SegmentTable({ sheet, hovered, onHover, canEdit, onRegime, onElevation }: Props) {
+export function SegmentTable(props: Props) {
+  const { sheet, hovered, onHover, canEdit, onRegime, onElevation, classes, onSurface } = props;
   const columns = sheetColumns(sheet);
   const table = sheetTable(sheet);
   const totals = new Map(columns.map((c, i) => [c.key, table.totals[i] ?? null]));
@@ -62,6 +67,18 @@ export function SegmentTable({ sheet, hovered, onHover, canEdit, onRegime, onEle
                       label={`Segment ${s.index + 1} flow regime`}
                       value={s.regime}
                       onChange={(r) => onRegime(s.index, r)}
+                    />
+                  </td>
+                );
+              }
+              if (canEdit && onSurface && classes && c.key === "surface") {
+                return (
+                  <td key={c.key} className={cls}>
+                    <SurfaceCell
+                      label={`Segment ${s.index + 1} surface class`}
+                      segment={s}
+                      classes={classes}
+                      onChange={(id) => onSurface(s.index, id)}
                     />
                   </td>
                 );

@@ -55,6 +55,11 @@ export function SheetPanel(props: Props) {
     const s = sheet?.segments[index];
     if (s) void edits.setElevation(end === "up" ? s.stationFrom : s.stationTo, toProject(value));
   };
+  // The stretch goes to the API in the project's length unit, as the stored sheet has it.
+  const onSurface = (index: number, surfaceClassId: string | null) => {
+    const s = sheet?.segments[index];
+    if (s) void edits.setSurface(s, surfaceClassId);
+  };
 
   return (
     <section aria-label="Travel-time sheet" className="flex min-h-0 flex-col bg-white">
@@ -158,6 +163,8 @@ export function SheetPanel(props: Props) {
               canEdit={props.canEdit}
               onRegime={onRegime}
               onElevation={onElevation}
+              classes={classes.data}
+              onSurface={onSurface}
             />
           ) : live.segments.length > 0 ? (
             <LivePreview

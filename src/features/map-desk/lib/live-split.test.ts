@@ -63,6 +63,24 @@ describe("the live split in the browser", () => {
     expect(segments[1]).toMatchObject({ regime: "shallow", stationFromM: 30 });
   });
 
+  it("gives a stretch the engineer overrode its class, as the server's compute does", () => {
+    const path: LonLat[] = [
+      [7.005, 45.005],
+      [7.015, 45.005],
+    ];
+    const segments = liveSegments(
+      path,
+      coverIndex([cover]),
+      soilIndex([soil]),
+      { sheetEndM: null, channelStartM: null },
+      [{ stationFromM: 100, stationToM: 200, surfaceClassId: "gravel" }],
+    );
+    expect(segments.map((s) => s.surfaceClassId)).toEqual(["woods", "gravel", "woods", "lawn"]);
+    expect(segments[1]).toMatchObject({ stationFromM: 100, stationToM: 200, hsg: "B" });
+    // The cover layer's own cut stays where GeographicLib puts the crossing of 7.01° (1 mm).
+    expect(segments[3]!.stationFromM).toBeCloseTo(gDist(path[0]!, [7.01, 45.005]), 3);
+  });
+
   it("asks for features in a box snapped outward to 0.005°, so small edits reuse it", () => {
     expect(
       featureBox([

@@ -5,6 +5,7 @@
  */
 import {
   HSG_CODES,
+  applySurfaceOverrides,
   buildPolygonIndex,
   pathLengthsM,
   regimeSegments,
@@ -15,6 +16,7 @@ import {
   type PolygonRings,
   type RegimeBreaks,
   type RegimeSegment,
+  type SurfaceOverride,
   type ValuedPolygon,
 } from "../../../../shared/geo";
 import type { LayerFeatures } from "../api/get-layer-features";
@@ -56,17 +58,22 @@ export function soilIndex(layers: readonly LayerFeatures[]): PolygonIndex<HsgCod
   return buildPolygonIndex(polygons);
 }
 
-/** Segments of a drawn path, or none while it has fewer than two distinct vertices. */
+/**
+ * Segments of a drawn path, or none while it has fewer than two distinct vertices. The surface
+ * overrides act on the split as the server's compute applies them.
+ */
 export function liveSegments(
   path: readonly LonLat[],
   cover: PolygonIndex<string | null>,
   soil: PolygonIndex<HsgCode | null>,
   breaks: RegimeBreaks,
+  overrides: readonly SurfaceOverride[] = [],
 ): RegimeSegment[] {
   if (path.length < 2) return [];
   const lengths = pathLengthsM(path);
   if (lengths.totalM === 0) return [];
-  return regimeSegments(splitFlowPath(path, cover, soil, lengths), breaks);
+  const pieces = applySurfaceOverrides(splitFlowPath(path, cover, soil, lengths), overrides);
+  return regimeSegments(pieces, breaks);
 }
 
 /**

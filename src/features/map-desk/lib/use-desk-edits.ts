@@ -1,7 +1,7 @@
 /**
- * Every edit the desk sends besides the path itself (breaks, surveyed elevations, reversing,
- * boundary, outlet, files), each followed by a fresh compute so the sheet never shows numbers
- * for geometry that is no longer there.
+ * Every edit the desk sends besides the path itself (breaks, surveyed elevations, surfaces,
+ * reversing, boundary, outlet, files), each followed by a fresh compute so the sheet never shows
+ * numbers for geometry that is no longer there.
  */
 import { useCallback, useState } from "react";
 import type { LonLat } from "../../../../shared/geo";
@@ -9,10 +9,12 @@ import type { Subcatchment } from "../../../../shared/schemas/subcatchments";
 import { isApiError } from "../../../lib/api";
 import { useSaveBreaks } from "../api/save-breaks";
 import { useSaveElevations, type SurveyEntry } from "../api/save-elevations";
+import { useSaveSurfaceOverrides } from "../api/save-surface-overrides";
 import { useReversePath } from "../api/reverse-path";
 import { useUpdateSubcatchment } from "../api/update-subcatchment";
 import { useUploadGeometryFile, type GeometryFileInput } from "../api/upload-geometry-file";
 import type { BreakChange } from "./regime-edit";
+import { withSurfaceStretch } from "./surface-edit";
 
 /** Two surveyed points closer than this (project length unit) are the same point. */
 const SAME_STATION = 0.01;
@@ -25,6 +27,7 @@ export function useDeskEdits(
   const id = subcatchment.id;
   const breaks = useSaveBreaks(id);
   const elevations = useSaveElevations(id);
+  const surfaces = useSaveSurfaceOverrides(id);
   const reverse = useReversePath(id);
   const update = useUpdateSubcatchment(id, projectId);
   const upload = useUploadGeometryFile(id);
@@ -62,6 +65,23 @@ export function useDeskEdits(
       ),
     );
 
+  /** A segment's stretch (project length unit) given a class, or back to the cover layer. */
+  const setSurface = (
+    stretch: { stationFrom: number; stationTo: number },
+    surfaceClassId: string | null,
+  ) =>
+    run(() =>
+      surfaces.mutateAsync({
+        entries: withSurfaceStretch(
+          subcatchment.surfaceOverrides,
+          stretch,
+          surfaceClassId,
+          "Chosen on the Map desk",
+        ),
+        version,
+      }),
+    );
+
   const reversePath = () => run(() => reverse.mutateAsync(version));
 
   const setArea = (ring: LonLat[]) => {
@@ -79,6 +99,7 @@ export function useDeskEdits(
   const busy =
     breaks.isPending ||
     elevations.isPending ||
+    surfaces.isPending ||
     reverse.isPending ||
     update.isPending ||
     upload.isPending;
@@ -86,6 +107,7 @@ export function useDeskEdits(
     moveBreaks,
     setElevation,
     clearElevation,
+    setSurface,
     reversePath,
     setArea,
     setOutlet,

@@ -1,9 +1,11 @@
 /**
  * The live split for the desk: cover and soil features of the ready layers in a box around
- * the path and boundary (fetched once per box), indexed, and the path split at every change.
+ * the path and boundary (fetched once per box), indexed, and the path split at every change,
+ * with the subcatchment's surface overrides applied.
  */
 import { useMemo } from "react";
-import type { LonLat, RegimeBreaks, RegimeSegment } from "../../../../shared/geo";
+import type { LonLat, RegimeBreaks, RegimeSegment, SurfaceOverride } from "../../../../shared/geo";
+import { mFromFt } from "../../../../shared/hydrology/units";
 import type { Bbox, Layer } from "../../../../shared/schemas/layers";
 import type { Subcatchment } from "../../../../shared/schemas/subcatchments";
 import { useLayersFeatures } from "../api/get-layer-features";
@@ -52,9 +54,20 @@ export function useLiveSplit(
     // eslint-disable-next-line react-hooks/exhaustive-deps
     soilData,
   );
+  const stored = subcatchment.surfaceOverrides;
+  const feet = subcatchment.lengthUnit === "ft";
+  const overrides = useMemo(
+    (): SurfaceOverride[] =>
+      stored.map((o) => ({
+        stationFromM: feet ? mFromFt(o.stationFrom) : o.stationFrom,
+        stationToM: feet ? mFromFt(o.stationTo) : o.stationTo,
+        surfaceClassId: o.surfaceClassId,
+      })),
+    [stored, feet],
+  );
   const segments = useMemo(
-    () => liveSegments(path, coverIdx, soilIdx, breaks),
-    [path, coverIdx, soilIdx, breaks.sheetEndM, breaks.channelStartM], // eslint-disable-line react-hooks/exhaustive-deps
+    () => liveSegments(path, coverIdx, soilIdx, breaks, overrides),
+    [path, coverIdx, soilIdx, breaks.sheetEndM, breaks.channelStartM, overrides], // eslint-disable-line react-hooks/exhaustive-deps
   );
   return {
     segments,
