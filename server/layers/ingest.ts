@@ -70,14 +70,14 @@ async function ingestVector(
     );
     const repairs =
       row.kind === "channel" ? [] : await repairOrRejectPolygons(tx, row.id, row.originalFilename);
-    const crsNote = { where: "file", message: `read in ${read.sourceCrs}, stored as WGS84` };
     await tx
       .update(layers)
       .set({
         status: "ready",
         featureCount: total,
         fields: [...read.fields],
-        notes: [crsNote, ...read.notes, ...repairs],
+        // The reader already notes a reprojection; WGS84 input needs no note.
+        notes: [...read.notes, ...repairs],
         bbox4326: await featureBbox(tx, row.id),
         progress: {
           ...(row.progress as LayerProgress),

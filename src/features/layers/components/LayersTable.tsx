@@ -48,11 +48,11 @@ function Findings({ layer }: { layer: Layer }) {
       ))}
       {layer.notes.slice(0, 5).map((n, i) => (
         <li key={`n${i}`} className="text-xs text-ink-600">
-          Repaired: {n.message} ({n.where})
+          {n.where}: {n.message}
         </li>
       ))}
       {layer.notes.length > 5 && (
-        <li className="text-xs text-ink-500">and {layer.notes.length - 5} more repairs</li>
+        <li className="text-xs text-ink-500">and {layer.notes.length - 5} more notes</li>
       )}
     </ul>
   );
