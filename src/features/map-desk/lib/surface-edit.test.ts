@@ -4,7 +4,7 @@
  * Stations are plain round numbers chosen to make the cuts easy to read.
  */
 import { describe, expect, it } from "vitest";
-import { withSurfaceStretch, type SurfaceEntry } from "./surface-edit";
+import { withSurfaceStretch, withinLength, type SurfaceEntry } from "./surface-edit";
 
 const entry = (stationFrom: number, stationTo: number, surfaceClassId: string): SurfaceEntry => ({
   stationFrom,
@@ -56,5 +56,15 @@ describe("withSurfaceStretch", () => {
   it("keeps overrides away from the segment as they are", () => {
     const list = [entry(0, 10, "pave"), entry(90, 100, "gravel")];
     expect(withSurfaceStretch(list, { stationFrom: 10, stationTo: 90 }, null)).toEqual(list);
+  });
+});
+
+describe("withinLength", () => {
+  it("cuts stretches to a path redrawn shorter and drops those past its end", () => {
+    const list = [entry(0, 10, "pave"), entry(20, 60, "gravel"), entry(70, 90, "lawn")];
+    expect(spans(withinLength(list, 50))).toEqual([
+      [0, 10, "pave"],
+      [20, 50, "gravel"],
+    ]);
   });
 });

@@ -50,3 +50,13 @@ export function withSurfaceStretch(
   }
   return out;
 }
+
+/**
+ * The list cut to a path's length (project length unit): a path redrawn shorter leaves stretches
+ * past its end, which the API would refuse when the list is sent again for another change.
+ */
+export function withinLength(entries: readonly SurfaceEntry[], length: number): SurfaceEntry[] {
+  return entries
+    .filter((e) => e.stationFrom < length - SLIVER)
+    .map((e) => (e.stationTo > length ? { ...e, stationTo: length } : e));
+}

@@ -5,6 +5,7 @@
  */
 import { useCallback, useState } from "react";
 import type { LonLat } from "../../../../shared/geo";
+import { ftFromM } from "../../../../shared/hydrology/units";
 import type { Subcatchment } from "../../../../shared/schemas/subcatchments";
 import { isApiError } from "../../../lib/api";
 import { useSaveBreaks } from "../api/save-breaks";
@@ -14,7 +15,7 @@ import { useReversePath } from "../api/reverse-path";
 import { useUpdateSubcatchment } from "../api/update-subcatchment";
 import { useUploadGeometryFile, type GeometryFileInput } from "../api/upload-geometry-file";
 import type { BreakChange } from "./regime-edit";
-import { withSurfaceStretch } from "./surface-edit";
+import { withSurfaceStretch, withinLength } from "./surface-edit";
 
 /** Two surveyed points closer than this (project length unit) are the same point. */
 const SAME_STATION = 0.01;
@@ -65,6 +66,8 @@ export function useDeskEdits(
       ),
     );
 
+  const lengthM = subcatchment.flowPath?.lengthM ?? 0;
+  const pathLength = subcatchment.lengthUnit === "ft" ? ftFromM(lengthM) : lengthM;
   /** A segment's stretch (project length unit) given a class, or back to the cover layer. */
   const setSurface = (
     stretch: { stationFrom: number; stationTo: number },
@@ -73,7 +76,7 @@ export function useDeskEdits(
     run(() =>
       surfaces.mutateAsync({
         entries: withSurfaceStretch(
-          subcatchment.surfaceOverrides,
+          withinLength(subcatchment.surfaceOverrides, pathLength),
           stretch,
           surfaceClassId,
           "Chosen on the Map desk",
