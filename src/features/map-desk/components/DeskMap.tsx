@@ -3,11 +3,13 @@ import { useEffect, useRef, useState } from "react";
 import type { BasemapConfig } from "../api/get-map-config";
 import { createDeskMap } from "../map/create-map";
 import { SEGMENT_LAYER } from "../map/desk-overlays";
+import type { TerrainTiling } from "../lib/terrain-tiling";
 
 interface DeskMapProps {
   basemap: BasemapConfig;
   projectId: string;
   terrainLayerId: string | undefined;
+  terrainTiling: TerrainTiling;
   bounds: [number, number, number, number] | null;
   lengthUnit: "ft" | "m";
   hovered: number | null;
@@ -21,6 +23,9 @@ export function DeskMap(props: DeskMapProps) {
   const container = useRef<HTMLDivElement>(null);
   const mapRef = useRef<MapLibreMap | null>(null);
   const boundsRef = useRef(props.bounds);
+  // Read when the map is made (with the terrain layer id, which the map depends on).
+  const tilingRef = useRef(props.terrainTiling);
+  tilingRef.current = props.terrainTiling;
   // The map is made in the project's unit; a later US/SI switch changes only the scale bar.
   const unitRef = useRef(lengthUnit);
   const [ready, setReady] = useState<MapLibreMap | null>(null);
@@ -37,6 +42,7 @@ export function DeskMap(props: DeskMapProps) {
       basemap,
       projectId,
       terrainLayerId,
+      terrainTiling: tilingRef.current,
       bounds: boundsRef.current,
       lengthUnit: unitRef.current,
     })

@@ -23,6 +23,7 @@ import { useOverlays } from "../lib/use-overlays";
 import type { DrawTool } from "../map/draw";
 import { BreakMarkers, type BreakKind } from "./BreakMarkers";
 import { DeskMap } from "./DeskMap";
+import { terrainTiling } from "../lib/terrain-tiling";
 import { DeskToolbar } from "./DeskToolbar";
 import { LayerPanel } from "./LayerPanel";
 import { SheetPanel } from "./SheetPanel";
@@ -176,6 +177,7 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
             basemap={basemap}
             projectId={project.id}
             terrainLayerId={terrain?.id}
+            terrainTiling={terrainTiling(terrain ?? { bbox4326: null, terrain: null })}
             bounds={bounds}
             lengthUnit={units === "si" ? "m" : "ft"}
             hovered={hovered}

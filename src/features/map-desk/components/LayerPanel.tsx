@@ -25,9 +25,16 @@ function apply(map: MapLibreMap, id: ToggleId, { on, opacity }: State[ToggleId])
     id === "basemap" ? basemapLayerIds(map).map((l) => [l, null] as const) : TOGGLE_LAYERS[id];
   for (const [layer, paint] of layers) {
     if (!map.getLayer(layer)) continue;
-    map.setLayoutProperty(layer, "visibility", on ? "visible" : "none");
-    if (paint)
-      map.setPaintProperty(layer, paint as Parameters<MapLibreMap["setPaintProperty"]>[1], opacity);
+    // Only what changes: maplibre reloads every tile of a layer's source (the terrain's too)
+    // when a layout property is set, even to the value it already has in effect.
+    const visibility = on ? "visible" : "none";
+    if ((map.getLayoutProperty(layer, "visibility") ?? "visible") !== visibility) {
+      map.setLayoutProperty(layer, "visibility", visibility);
+    }
+    const property = paint as Parameters<MapLibreMap["setPaintProperty"]>[1] | null;
+    if (property && map.getPaintProperty(layer, property) !== opacity) {
+      map.setPaintProperty(layer, property, opacity);
+    }
   }
 }
 

@@ -6,6 +6,7 @@ import { newestReady } from "../api/get-layers";
 import type { BasemapConfig } from "../api/get-map-config";
 import { initialBounds } from "../lib/initial-bounds";
 import { DeskMap } from "./DeskMap";
+import { terrainTiling } from "../lib/terrain-tiling";
 import { LayerPanel } from "./LayerPanel";
 
 const noHover = () => undefined;
@@ -30,6 +31,7 @@ export function MapOnly({
           basemap={basemap}
           projectId={project.id}
           terrainLayerId={terrain?.id}
+          terrainTiling={terrainTiling(terrain ?? { bbox4326: null, terrain: null })}
           bounds={bounds}
           lengthUnit={project.units === "si" ? "m" : "ft"}
           hovered={null}

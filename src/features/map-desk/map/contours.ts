@@ -15,13 +15,13 @@ export const DEFAULT_INTERVAL = { ft: 2, m: 1 } as const;
 
 const sources = new Map<string, InstanceType<typeof mlcontour.DemSource>>();
 
-function demSource(origin: string, layerId: string) {
+function demSource(origin: string, layerId: string, maxzoom: number) {
   let dem = sources.get(layerId);
   if (!dem) {
     dem = new mlcontour.DemSource({
       url: `${origin}/api/layers/${encodeURIComponent(layerId)}/terrain/{z}/{x}/{y}.png`,
       encoding: "terrarium",
-      maxzoom: 17,
+      maxzoom,
       worker: true,
       timeoutMs: 5_000,
     });
@@ -40,9 +40,16 @@ function demSource(origin: string, layerId: string) {
   return dem;
 }
 
-export function contourTiles(origin: string, layerId: string, unit: "ft" | "m", interval: number) {
+/** The contour tiles' URL; the terrain's deepest zoom counts the first time a layer is seen. */
+export function contourTiles(
+  origin: string,
+  layerId: string,
+  unit: "ft" | "m",
+  interval: number,
+  maxzoom = 17,
+) {
   return [
-    demSource(origin, layerId).contourProtocolUrl({
+    demSource(origin, layerId, maxzoom).contourProtocolUrl({
       multiplier: unit === "ft" ? ftFromM(1) : 1,
       thresholds: { 13: [interval * 5, interval * 25], 15: [interval, interval * 5] },
       elevationKey: "ele",

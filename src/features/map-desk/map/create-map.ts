@@ -10,8 +10,9 @@ import { Protocol } from "pmtiles";
 import type { BasemapConfig } from "../api/get-map-config";
 import { basemapLayers, basemapStyle, demoBasemapTiles } from "./basemap-style";
 import { contourLayers, contourTiles, DEFAULT_INTERVAL } from "./contours";
-import { addOverlays } from "./desk-overlays";
+import { addOverlays, overlaySources, overlayLayers } from "./desk-overlays";
 import { projectLayers, projectSources } from "./project-layers";
+import type { TerrainTiling } from "../lib/terrain-tiling";
 
 maplibregl.setWorkerUrl(workerUrl);
 
@@ -27,6 +28,8 @@ export interface CreateMapOptions {
   basemap: BasemapConfig;
   projectId: string;
   terrainLayerId: string | undefined;
+  /** The terrain layer's extent and deepest useful zoom. */
+  terrainTiling: TerrainTiling;
   bounds: [number, number, number, number] | null;
   lengthUnit: "ft" | "m";
 }
@@ -48,14 +51,16 @@ async function baseStyle(basemap: BasemapConfig, origin: string) {
 export async function createDeskMap(options: CreateMapOptions): Promise<maplibregl.Map> {
   const origin = window.location.origin;
   const style = await baseStyle(options.basemap, origin);
-  const sources = projectSources(origin, options.projectId, options.terrainLayerId);
+  const tiling = options.terrainTiling;
+  const sources = projectSources(origin, options.projectId, options.terrainLayerId, tiling);
   const terrainId = options.terrainLayerId;
   const unit = options.lengthUnit;
   if (terrainId) {
     sources["terrain-contours"] = {
       type: "vector",
-      tiles: contourTiles(origin, terrainId, unit, DEFAULT_INTERVAL[unit]),
-      maxzoom: 17,
+      tiles: contourTiles(origin, terrainId, unit, DEFAULT_INTERVAL[unit], tiling.maxzoom),
+      maxzoom: tiling.maxzoom,
+      ...(tiling.bounds && { bounds: tiling.bounds }),
     };
   }
   // The project's layers sit under the basemap's labels (the first symbol layer).
@@ -66,10 +71,13 @@ export async function createDeskMap(options: CreateMapOptions): Promise<maplibre
     ...projectLayers(Boolean(terrainId)),
     ...(terrainId ? contourLayers() : []),
     ...style.layers.slice(at),
+    // The desk's overlays are in the first style, so their empty sources load with the rest
+    // rather than after the map's first load.
+    ...overlayLayers(),
   ];
   const map = new maplibregl.Map({
     container: options.container,
-    style: { ...style, sources: { ...style.sources, ...sources }, layers },
+    style: { ...style, sources: { ...style.sources, ...sources, ...overlaySources() }, layers },
     bounds: options.bounds ?? undefined,
     fitBoundsOptions: { padding: 40 },
     center: options.bounds ? undefined : [0, 0],
@@ -82,6 +90,7 @@ export async function createDeskMap(options: CreateMapOptions): Promise<maplibre
   });
   map.touchZoomRotate.disableRotation();
   map.addControl(new maplibregl.NavigationControl({ showCompass: false }), "top-right");
+  // A configured style may drop them when it is swapped: put back whatever is missing.
   map.on("load", () => addOverlays(map));
   return map;
 }

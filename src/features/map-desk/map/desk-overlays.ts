@@ -4,7 +4,12 @@
  * they are a handful of features that change as the engineer draws.
  */
 import type { FeatureCollection } from "geojson";
-import type { LayerSpecification, Map as MapLibreMap, GeoJSONSource } from "maplibre-gl";
+import type {
+  GeoJSONSource,
+  LayerSpecification,
+  Map as MapLibreMap,
+  SourceSpecification,
+} from "maplibre-gl";
 import { MAP_FONT } from "./basemap-style";
 import { MAP_COLOURS as C, REGIME_COLOURS } from "./palette";
 
@@ -95,9 +100,19 @@ export function overlayLayers(): LayerSpecification[] {
   ];
 }
 
+/** The overlays' sources, empty until the desk fills them. */
+export function overlaySources(): Record<OverlaySource, SourceSpecification> {
+  const empty = (): SourceSpecification => ({ type: "geojson", data: EMPTY, promoteId: "index" });
+  return Object.fromEntries(OVERLAY_SOURCES.map((id) => [id, empty()])) as Record<
+    OverlaySource,
+    SourceSpecification
+  >;
+}
+
 export function addOverlays(map: MapLibreMap): void {
+  const sources = overlaySources();
   for (const id of OVERLAY_SOURCES) {
-    if (!map.getSource(id)) map.addSource(id, { type: "geojson", data: EMPTY, promoteId: "index" });
+    if (!map.getSource(id)) map.addSource(id, sources[id]);
   }
   for (const layer of overlayLayers()) if (!map.getLayer(layer.id)) map.addLayer(layer);
 }

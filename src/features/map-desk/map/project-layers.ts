@@ -4,6 +4,7 @@
  * channels, boundary layers and subcatchment outlines, all from the project's vector tiles.
  */
 import type { LayerSpecification, SourceSpecification } from "maplibre-gl";
+import type { TerrainTiling } from "../lib/terrain-tiling";
 import { HSG_COLOURS, MAP_COLOURS as C } from "./palette";
 
 export type ToggleId =
@@ -46,6 +47,7 @@ export function projectSources(
   origin: string,
   projectId: string,
   terrainLayerId: string | undefined,
+  tiling: TerrainTiling,
 ): Record<string, SourceSpecification> {
   const sources: Record<string, SourceSpecification> = {
     project: {
@@ -61,7 +63,8 @@ export function projectSources(
       tiles: [`${origin}/api/layers/${encodeURIComponent(terrainLayerId)}/terrain/{z}/{x}/{y}.png`],
       tileSize: 256,
       encoding: "terrarium",
-      maxzoom: 17,
+      maxzoom: tiling.maxzoom,
+      ...(tiling.bounds && { bounds: tiling.bounds }),
     };
   }
   return sources;
