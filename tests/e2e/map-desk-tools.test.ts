@@ -97,6 +97,43 @@ describe("Map desk tools", () => {
     await desk.guard.close();
   });
 
+  it("splits the path while it is traced, before it is finished, and forgets an unfinished one", async () => {
+    const desk = await openDesk("Live trace");
+    const { page } = desk;
+    const version = await pathVersion(page);
+    const savedVersion = (await desk.saved()).flowPath?.version;
+    const preview = page.getByRole("table", { name: "Segments being drawn" });
+    const rows = preview.locator("[data-live-segment]");
+    // The last row's station to (the traced length so far), in feet on a US project.
+    const tracedLength = async () => Number(await rows.last().locator("td").nth(2).textContent());
+
+    await page.getByRole("button", { name: "Trace path" }).click();
+    await clickAll(desk, TRACE.slice(0, 2));
+    await rows.first().waitFor();
+    expect(await preview.locator("caption").textContent()).toMatch(/not saved, not computed yet/);
+    const lengths = await rows.locator("td:nth-child(4)").allTextContents();
+    expect(lengths.length).toBeGreaterThanOrEqual(1);
+    for (const l of lengths) expect(Number(l)).toBeGreaterThan(0);
+    const afterTwo = await tracedLength();
+    expect(afterTwo).toBeGreaterThan(0);
+
+    // The pointer moving on alone changes nothing; the next click lengthens the split.
+    const far = desk.at(0.6, 0.9);
+    await page.mouse.move(far.x, far.y, { steps: 5 });
+    expect(await tracedLength()).toBe(afterTwo);
+    await clickAll(desk, TRACE.slice(2, 3));
+    await expect.poll(tracedLength).toBeGreaterThan(afterTwo);
+    expect(await page.getByRole("table", { name: "Travel time by segment" }).count()).toBe(0);
+
+    // Escape leaves the trace unfinished: nothing was saved and the computed sheet is back.
+    await page.keyboard.press("Escape");
+    await page.getByRole("table", { name: "Travel time by segment" }).waitFor();
+    expect(await preview.count()).toBe(0);
+    expect(await pathVersion(page)).toBe(version);
+    expect((await desk.saved()).flowPath?.version).toBe(savedVersion);
+    await desk.guard.close();
+  });
+
   it("undoes a traced path back to the one before it, and redoes it", async () => {
     const desk = await openDesk("Undo trace");
     const { page } = desk;

@@ -130,6 +130,7 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
     onArea: (ring) => void edits.setArea(ring),
     onOutlet: (p) => void edits.setOutlet(p),
     onMeasure: setMeasure,
+    onTraceCancel: autosave.cancelTrace,
   });
   const chooseTool = (next: DrawTool) => {
     setTool(next);

@@ -4,6 +4,8 @@ import type { SurfaceClass } from "../../../lib/surface-classes";
 
 interface Props {
   segments: readonly RegimeSegment[];
+  /** A path is being traced: the segments are of the vertices clicked so far. */
+  tracing: boolean;
   units: UnitSystem;
   classes: readonly SurfaceClass[] | undefined;
   hovered: number | null;
@@ -11,12 +13,17 @@ interface Props {
 }
 
 /** The split the browser just made: stations, lengths and classes before the server's slopes. */
-export function LivePreview({ segments, units, classes, hovered, onHover }: Props) {
+export function LivePreview({ segments, tracing, units, classes, hovered, onHover }: Props) {
   const len = (m: number) => (units === "us" ? ftFromM(m) : m).toFixed(2);
   const name = (id: string | null) =>
     id === null ? "unmapped" : (classes?.find((c) => c.id === id)?.name ?? "class not in catalog");
   return (
-    <table className="w-full text-xs" aria-label="Segments being drawn">
+    <table className="w-full text-xs" aria-label="Segments being drawn" data-preview>
+      <caption className="bg-caution-50 px-1.5 py-1 text-left text-caution-900">
+        {tracing
+          ? "Preview of the vertices placed so far: not saved, not computed yet."
+          : "Preview split in this browser: slopes and times follow from the server."}
+      </caption>
       <thead className="bg-ink-50 text-left text-ink-700">
         <tr>
           <th scope="col" className="px-1.5 py-1">

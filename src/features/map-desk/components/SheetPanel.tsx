@@ -108,6 +108,7 @@ export function SheetPanel(props: Props) {
         computing={props.computing}
         saving={props.autosave.saving || edits.busy}
         draft={props.autosave.draft !== null}
+        tracing={props.autosave.tracing}
         conflict={props.autosave.conflict}
         onKeepMine={props.autosave.keepMine}
         onTakeSaved={props.autosave.takeSaved}
@@ -169,6 +170,7 @@ export function SheetPanel(props: Props) {
           ) : live.segments.length > 0 ? (
             <LivePreview
               segments={live.segments}
+              tracing={props.autosave.tracing}
               units={units}
               classes={classes.data}
               hovered={props.hovered}

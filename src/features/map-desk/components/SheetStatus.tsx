@@ -7,6 +7,7 @@ interface Props {
   computing: boolean;
   saving: boolean;
   draft: boolean;
+  tracing: boolean;
   conflict: PathConflict | null;
   onKeepMine: () => void;
   onTakeSaved: () => void;
@@ -20,13 +21,15 @@ export function SheetStatus(p: Props) {
     ? "Saving…"
     : p.computing
       ? "Computing every method…"
-      : p.draft
-        ? "Drawing: the segments below are the live split; the sheet follows when you pause."
-        : !p.sheet
-          ? "Not computed yet."
-          : p.upToDate
-            ? `Computed ${new Date(p.sheet.computedAt).toLocaleString()} for path version ${p.sheet.flowPathVersion}.`
-            : "The path changed since this sheet was computed.";
+      : p.tracing
+        ? "Tracing: the segments below preview the vertices placed; not saved yet. Enter finishes."
+        : p.draft
+          ? "Drawing: the segments below are the live split; the sheet follows when you pause."
+          : !p.sheet
+            ? "Not computed yet."
+            : p.upToDate
+              ? `Computed ${new Date(p.sheet.computedAt).toLocaleString()} for path version ${p.sheet.flowPathVersion}.`
+              : "The path changed since this sheet was computed.";
   return (
     <div
       className="flex min-h-10 flex-wrap items-center gap-2 border-b border-ink-100 px-3 py-1.5 text-xs"

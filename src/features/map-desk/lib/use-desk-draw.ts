@@ -28,6 +28,7 @@ export function useDeskDraw(
       onArea: (r) => eventsRef.current.onArea(r),
       onOutlet: (p) => eventsRef.current.onOutlet(p),
       onMeasure: (c) => eventsRef.current.onMeasure(c),
+      onTraceCancel: () => eventsRef.current.onTraceCancel(),
     });
     setDraw(made);
     return () => {

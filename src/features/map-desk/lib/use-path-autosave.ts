@@ -4,6 +4,7 @@
  * saved in between) keeps the draft and asks: keep mine (save over the new version) or take
  * the saved path. Nothing is dropped silently. Each saved edit is reported with the path it
  * replaced (for undo); a path put back by undo or redo is saved without being reported again.
+ * A path still being traced is shown, not saved, until the trace is finished.
  */
 import { useCallback, useEffect, useRef, useState } from "react";
 import type { LonLat } from "../../../../shared/geo";
@@ -41,6 +42,9 @@ export function usePathAutosave(
   // The saved path when the current draft began, and whether undo or redo made the draft.
   const baseRef = useRef<LonLat[]>([]);
   const quietRef = useRef(false);
+  const settledRef = useRef(settled);
+  // The draft a trace began over, put back if the trace is left unfinished.
+  const beforeTraceRef = useRef<LonLat[] | null>(null);
   const onSavedRef = useRef(onSaved);
   onSavedRef.current = onSaved;
 
@@ -76,14 +80,25 @@ export function usePathAutosave(
     if (draftRef.current === null) baseRef.current = savedRef.current;
     // A drawing edit on top of a put-back path is the engineer's own change again.
     quietRef.current = false;
+    if (!isSettled && settledRef.current) beforeTraceRef.current = draftRef.current;
+    settledRef.current = isSettled;
     setDraft(coords);
     setSettled(isSettled);
+  }, []);
+
+  /** A trace left unfinished: the desk goes back to what it showed before the trace began. */
+  const cancelTrace = useCallback(() => {
+    if (settledRef.current) return;
+    settledRef.current = true;
+    setDraft(beforeTraceRef.current);
+    setSettled(true);
   }, []);
 
   /** Puts a path back (undo, redo): saved like an edit, not reported as a new one. */
   const restore = useCallback((coords: LonLat[]) => {
     baseRef.current = savedRef.current;
     quietRef.current = true;
+    settledRef.current = true;
     setDraft(coords);
     setSettled(true);
   }, []);
@@ -100,5 +115,17 @@ export function usePathAutosave(
     setDraft(null);
   }, []);
 
-  return { draft, edit, restore, conflict, keepMine, takeSaved, saving: save.isPending, error };
+  return {
+    draft,
+    /** A path is being traced: the draft is the vertices clicked so far, not yet to be saved. */
+    tracing: draft !== null && !settled,
+    edit,
+    restore,
+    cancelTrace,
+    conflict,
+    keepMine,
+    takeSaved,
+    saving: save.isPending,
+    error,
+  };
 }

@@ -15,13 +15,19 @@ import {
 } from "terra-draw";
 import { TerraDrawMapLibreGLAdapter } from "terra-draw-maplibre-gl-adapter";
 import type { LonLat } from "../../../../shared/geo";
+import { placedVertices, sameVertices } from "../lib/trace-vertices";
 import { MAP_COLOURS } from "./palette";
 
 export type DrawTool = "pan" | "trace" | "edit" | "outline" | "outlet" | "measure";
 
 export interface DrawEvents {
-  /** The path changed; `settled` is false while a new path is still being traced. */
+  /**
+   * The path changed; `settled` is false while a new path is still being traced, and then
+   * `coords` are the vertices clicked so far (two or more), told once per click.
+   */
   onPath(coords: LonLat[], settled: boolean): void;
+  /** A trace was left unfinished (Escape, or another tool chosen): its vertices are gone. */
+  onTraceCancel(): void;
   onArea(ring: LonLat[]): void;
   onOutlet(point: LonLat): void;
   onMeasure(coords: LonLat[]): void;
@@ -44,6 +50,8 @@ export class DeskDraw {
   private readonly draw: TerraDraw;
   private readonly ids = { ...ids };
   private loading = false;
+  /** The line being traced and the vertices last told for it. */
+  private tracing: { id: string; placed: LonLat[] } | null = null;
 
   constructor(
     map: MapLibreMap,
@@ -82,7 +90,7 @@ export class DeskDraw {
       ],
     });
     this.draw.start();
-    this.draw.on("change", (changed) => this.changed(changed as string[]));
+    this.draw.on("change", (changed, type) => this.changed(changed as string[], type));
     this.draw.on("finish", (id) => this.finished(String(id)));
   }
 
@@ -90,9 +98,16 @@ export class DeskDraw {
     return (Object.keys(this.ids) as Kind[]).find((k) => this.ids[k] === id);
   }
 
-  private changed(changed: string[]) {
+  private changed(changed: string[], type: string) {
     if (this.loading) return;
     for (const id of changed) {
+      if (type === "delete") {
+        if (this.tracing?.id === id) {
+          this.tracing = null;
+          this.events.onTraceCancel();
+        }
+        continue;
+      }
       const f = this.draw.getSnapshotFeature(id);
       const mode = f?.properties.mode;
       const kind = this.kindOf(id);
@@ -101,13 +116,24 @@ export class DeskDraw {
         const coords = coordsOf(f);
         if (coords.length >= 2) this.events.onPath(coords, true);
       } else if (mode === "trace" && this.draw.getMode() === "trace") {
-        this.events.onPath(coordsOf(f), false);
+        // The trace's closing point is a feature of the same mode: only the line is the path.
+        if (f?.geometry.type === "LineString") this.traced(id, f);
       } else if (mode === "measure") this.events.onMeasure(coordsOf(f));
     }
   }
 
+  /** Tells the vertices clicked so far, once per click: moving the pointer changes nothing. */
+  private traced(id: string, f: GeoJSONStoreFeatures) {
+    const drawing = f.properties.currentlyDrawing === true;
+    const placed = placedVertices(coordsOf(f), drawing);
+    if (this.tracing?.id === id && sameVertices(this.tracing.placed, placed)) return;
+    this.tracing = { id, placed };
+    if (placed.length >= 2) this.events.onPath(placed, false);
+  }
+
   private finished(id: string) {
     if (this.loading) return;
+    if (this.tracing?.id === id) this.tracing = null;
     const f = this.draw.getSnapshotFeature(id);
     const mode = f?.properties.mode;
     const replace = (kind: Kind) => {
