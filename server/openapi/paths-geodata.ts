@@ -20,6 +20,7 @@ import {
   putElevationsBody,
   putSurfaceOverridesBody,
   putFlowPathBody,
+  subcatchmentListItemSchema,
   subcatchmentSchema,
   updateSubcatchmentBody,
   versionBody,
@@ -155,10 +156,11 @@ export function registerGeodataPaths(d: ApiDocs): void {
 
   const sub = subcatchmentSchema;
   d.route("get", "/projects/:projectId/subcatchments", {
-    summary: "A project's subcatchments",
+    summary:
+      "A project's subcatchments, each with a summary of its stored sheet (null: not computed)",
     tag: "Subcatchments",
     permission: "project:read",
-    response: z.array(sub),
+    response: z.array(subcatchmentListItemSchema),
   });
   d.route("post", "/projects/:projectId/subcatchments", {
     summary: "Add a subcatchment (boundary checked by PostGIS)",

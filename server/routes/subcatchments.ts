@@ -32,6 +32,7 @@ import {
   writeFlowPath,
 } from "../geodata/flow-path-store";
 import { reverseSurfaceOverrides, writeSurfaceOverrides } from "../geodata/surface-override-store";
+import { loadResultSummaries } from "../geodata/result-summary-store";
 import {
   checkBoundary,
   geomFromJson,
@@ -80,8 +81,12 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
         .from(subcatchments)
         .where(eq(subcatchments.projectId, currentProject(req).id))
         .orderBy(asc(subcatchments.name), asc(subcatchments.scenario));
+      const results = await loadResultSummaries(db, currentProject(req).id);
       const list = [];
-      for (const r of rows) list.push(await answerSubcatchment(db, req, r.id));
+      for (const r of rows) {
+        const item = await answerSubcatchment(db, req, r.id);
+        list.push({ ...item, result: results.get(r.id) ?? null });
+      }
       res.json(list);
     },
   );

@@ -201,3 +201,25 @@ export const subcatchmentSchema = z.object({
   updatedAt: z.string(),
 });
 export type Subcatchment = z.output<typeof subcatchmentSchema>;
+
+/**
+ * What the list tells of a subcatchment's stored sheet, so an overview needs no sheet of its
+ * own: the governing Tc and its method, or the first problem that kept the methods from running.
+ */
+export const resultSummarySchema = z.object({
+  governingTcMin: z.number().nullable(),
+  governingMethodLabel: z.string().nullable(),
+  /** The first problem on the sheet when no Tc governs (null when one does or none is noted). */
+  problem: z.string().nullable(),
+  computedAt: z.string(),
+  flowPathVersion: z.number().int(),
+  /** The path changed since the sheet was computed (or the path is gone). */
+  stale: z.boolean(),
+});
+export type ResultSummary = z.output<typeof resultSummarySchema>;
+
+/** An item of a project's list: the subcatchment with its result summary (null: never computed). */
+export const subcatchmentListItemSchema = subcatchmentSchema.extend({
+  result: resultSummarySchema.nullable(),
+});
+export type SubcatchmentListItem = z.output<typeof subcatchmentListItemSchema>;

@@ -17,6 +17,9 @@ export const queryKeys = {
   invitation: (token: string) => ["invitations", token] as const,
   // Geodata: a project's subcatchments, layers, rainfall and rules; a team's Surface catalog.
   subcatchments: (projectId: string) => ["projects", projectId, "subcatchments"] as const,
+  /** The same list parsed with each result summary (under the list's key, so refreshed with it). */
+  subcatchmentSummaries: (projectId: string) =>
+    ["projects", projectId, "subcatchments", "with-results"] as const,
   subcatchment: (subcatchmentId: string) => ["subcatchments", subcatchmentId] as const,
   sheet: (subcatchmentId: string) => ["subcatchments", subcatchmentId, "sheet"] as const,
   layers: (projectId: string) => ["projects", projectId, "layers"] as const,

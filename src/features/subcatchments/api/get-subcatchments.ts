@@ -1,20 +1,27 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { z } from "zod";
-import { subcatchmentSchema, type Subcatchment } from "../../../../shared/schemas/subcatchments";
+import {
+  subcatchmentListItemSchema,
+  type SubcatchmentListItem,
+} from "../../../../shared/schemas/subcatchments";
 import { apiGet, apiPath } from "../../../lib/api";
 import { queryKeys } from "../../../lib/query-keys";
 
-export function getSubcatchments(projectId: string, signal?: AbortSignal): Promise<Subcatchment[]> {
+/** A project's subcatchments, each with the summary of its stored sheet: one request. */
+export function getSubcatchments(
+  projectId: string,
+  signal?: AbortSignal,
+): Promise<SubcatchmentListItem[]> {
   return apiGet(
     apiPath`/api/projects/${projectId}/subcatchments`,
-    z.array(subcatchmentSchema),
+    z.array(subcatchmentListItemSchema),
     signal,
   );
 }
 
 export const subcatchmentsQueryOptions = (projectId: string) =>
   queryOptions({
-    queryKey: queryKeys.subcatchments(projectId),
+    queryKey: queryKeys.subcatchmentSummaries(projectId),
     queryFn: ({ signal }) => getSubcatchments(projectId, signal),
   });
 

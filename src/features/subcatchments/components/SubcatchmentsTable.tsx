@@ -1,19 +1,16 @@
 import { Link } from "react-router-dom";
 import { ftFromM } from "../../../../shared/hydrology/units";
-import { type TravelTimeSheet } from "../../../../shared/schemas/sheet";
-import { type Subcatchment } from "../../../../shared/schemas/subcatchments";
+import { type SubcatchmentListItem } from "../../../../shared/schemas/subcatchments";
 import { linkClass } from "../../../components/link-styles";
 import { TableHead } from "../../../components/TableHead";
-import { isApiError } from "../../../lib/api";
 import { MAP_DESK_AVAILABLE, mapDeskPath } from "../../../lib/project-outlet";
-import { useSheets } from "../api/get-sheet";
 
 export type SubcatchmentState = "no-path" | "not-computed" | "computed" | "out-of-date";
 
 /** Where a subcatchment stands: a result is out of date once its path version moved on. */
-export function stateOf(s: Subcatchment): SubcatchmentState {
-  if (s.computedVersion === null) return s.flowPath ? "not-computed" : "no-path";
-  return s.flowPath?.version === s.computedVersion ? "computed" : "out-of-date";
+export function stateOf(s: SubcatchmentListItem): SubcatchmentState {
+  if (!s.result) return s.flowPath ? "not-computed" : "no-path";
+  return s.result.stale ? "out-of-date" : "computed";
 }
 
 const STATE_LABELS: Record<SubcatchmentState, { text: string; className: string }> = {
@@ -31,30 +28,21 @@ const COLUMNS = [
   { label: "State" },
 ];
 
-function TcCell({
-  sheet,
-  error,
-  loading,
-}: {
-  sheet?: TravelTimeSheet;
-  error: unknown;
-  loading: boolean;
-}) {
-  if (loading) return <span className="text-ink-500">Loading…</span>;
-  if (isApiError(error, 404) || (!sheet && !error)) return <span className="text-ink-500">—</span>;
-  if (error) return <span className="text-brick-700">Could not load</span>;
-  if (!sheet?.governing) {
+function TcCell({ result }: { result: SubcatchmentListItem["result"] }) {
+  if (!result) return <span className="text-ink-500">—</span>;
+  if (result.governingTcMin === null) {
     return (
       <span className="text-ink-600">
-        No governing Tc{sheet?.problems[0] ? `: ${sheet.problems[0]}` : ""}
+        No governing Tc{result.problem ? `: ${result.problem}` : ""}
       </span>
     );
   }
-  const g = sheet.governing;
   return (
     <span>
-      <span className="font-semibold text-ink-900 tabular-nums">{g.tcMin.toFixed(1)} min</span>
-      <span className="block text-xs text-ink-500">{g.label}</span>
+      <span className="font-semibold text-ink-900 tabular-nums">
+        {result.governingTcMin.toFixed(1)} min
+      </span>
+      <span className="block text-xs text-ink-500">{result.governingMethodLabel}</span>
     </span>
   );
 }
@@ -64,12 +52,8 @@ export function SubcatchmentsTable({
   subcatchments,
 }: {
   projectId: string;
-  subcatchments: readonly Subcatchment[];
+  subcatchments: readonly SubcatchmentListItem[];
 }) {
-  const computed = subcatchments.filter((s) => s.computedVersion !== null);
-  const sheets = useSheets(computed.map((s) => s.id));
-  const sheetOf = new Map(computed.map((s, i) => [s.id, sheets[i]]));
-
   return (
     <table className="w-full text-left text-sm">
       <caption className="sr-only">Subcatchments of the project</caption>
@@ -78,7 +62,6 @@ export function SubcatchmentsTable({
         {subcatchments.map((s) => {
           const state = stateOf(s);
           const label = STATE_LABELS[state];
-          const q = sheetOf.get(s.id);
           return (
             <tr key={s.id} className="align-top">
               <td className="py-3 pr-4 font-medium text-ink-900">
@@ -97,7 +80,7 @@ export function SubcatchmentsTable({
                   : "—"}
               </td>
               <td className="py-3 pr-4">
-                <TcCell sheet={q?.data} error={q?.error} loading={q?.isPending ?? false} />
+                <TcCell result={s.result} />
               </td>
               <td className="py-3">
                 <span className={`rounded-sm px-1.5 py-0.5 text-xs font-medium ${label.className}`}>
