@@ -97,6 +97,27 @@ describe("Map desk tools", () => {
     await desk.guard.close();
   });
 
+  it("undoes a reversal: the path's first point, its breaks and every total come back", async () => {
+    const desk = await openDesk("Undo reverse");
+    const { page } = desk;
+    const before = await desk.saved();
+    const original = coordsOf(before);
+    const totals = JSON.stringify(await totalsByMethod(page));
+    const version = await pathVersion(page);
+
+    await page.getByRole("button", { name: "Reverse path" }).click();
+    await expect.poll(() => pathVersion(page), SLOW).toBe(version + 1);
+    expect(coordsOf(await desk.saved())[0]).toEqual(original.at(-1));
+
+    await page.getByRole("button", { name: "Undo" }).click();
+    await expect.poll(async () => coordsOf(await desk.saved())[0], SLOW).toEqual(original[0]);
+    expect(coordsOf(await desk.saved())).toEqual(original);
+    await expect.poll(async () => (await desk.saved()).breaks, SLOW).toEqual(before.breaks);
+    await expect.poll(async () => JSON.stringify(await totalsByMethod(page)), SLOW).toBe(totals);
+    expect(await page.getByRole("button", { name: "Redo" }).isEnabled()).toBe(true);
+    await desk.guard.close();
+  });
+
   it("splits the path while it is traced, before it is finished, and forgets an unfinished one", async () => {
     const desk = await openDesk("Live trace");
     const { page } = desk;

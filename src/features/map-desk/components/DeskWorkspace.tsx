@@ -16,6 +16,13 @@ import { initialBounds } from "../lib/initial-bounds";
 import { usePathAutosave } from "../lib/use-path-autosave";
 import { useDeskDraw } from "../lib/use-desk-draw";
 import { useDeskEdits } from "../lib/use-desk-edits";
+import {
+  areaOutline,
+  outletOutline,
+  outlineChange,
+  reverseChange,
+  type OutlineChange,
+} from "../lib/desk-history";
 import { useDeskHistory } from "../lib/use-desk-history";
 import type { BreakChange } from "../lib/regime-edit";
 import { useLiveSplit } from "../lib/use-live-split";
@@ -51,7 +58,9 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
       const coords = [...change[side]];
       draw?.load("path", coords);
       autosave.restore(coords);
-    } else void saved.moveBreaks(change[side]);
+    } else if (change.kind === "breaks") void saved.moveBreaks(change[side]);
+    else if (change.kind === "reverse") void saved.reversePath(change[side]);
+    else void saved.setOutline(change[side]);
   });
   const autosave = usePathAutosave(subcatchment, recompute, refetch, (before, after) =>
     history.record({ kind: "path", before, after }),
@@ -66,6 +75,19 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
       if (change.channelStart !== undefined) before.channelStart = subcatchment.breaks.channelStart;
       history.record({ kind: "breaks", before, after: change });
       return saved.moveBreaks(change);
+    },
+    // Recorded once saved: a refused change has nothing to undo.
+    reversePath: async () => {
+      const change = reverseChange(subcatchment.breaks);
+      const ok = await saved.reversePath();
+      if (ok) history.record(change);
+      return ok;
+    },
+    setOutline: async (patch: OutlineChange) => {
+      const change = outlineChange(subcatchment, patch);
+      const ok = await saved.setOutline(patch);
+      if (ok) history.record(change);
+      return ok;
     },
   };
   const [map, setMap] = useState<MapLibreMap | null>(null);
@@ -127,8 +149,11 @@ export function DeskWorkspace({ project, role, subcatchment, layers, basemap }: 
         draw?.setTool("pan");
       }
     },
-    onArea: (ring) => void edits.setArea(ring),
-    onOutlet: (p) => void edits.setOutlet(p),
+    onArea: (ring) => {
+      const patch = areaOutline(ring);
+      if (patch) void edits.setOutline(patch);
+    },
+    onOutlet: (p) => void edits.setOutline(outletOutline(p)),
     onMeasure: setMeasure,
     onTraceCancel: autosave.cancelTrace,
   });

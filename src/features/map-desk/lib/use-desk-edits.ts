@@ -4,7 +4,6 @@
  * numbers for geometry that is no longer there.
  */
 import { useCallback, useState } from "react";
-import type { LonLat } from "../../../../shared/geo";
 import { ftFromM } from "../../../../shared/hydrology/units";
 import type { Subcatchment } from "../../../../shared/schemas/subcatchments";
 import { isApiError } from "../../../lib/api";
@@ -14,6 +13,7 @@ import { useSaveSurfaceOverrides } from "../api/save-surface-overrides";
 import { useReversePath } from "../api/reverse-path";
 import { useUpdateSubcatchment } from "../api/update-subcatchment";
 import { useUploadGeometryFile, type GeometryFileInput } from "../api/upload-geometry-file";
+import { hasBreaks, type OutlineChange } from "./desk-history";
 import type { BreakChange } from "./regime-edit";
 import { withSurfaceStretch, withinLength } from "./surface-edit";
 
@@ -35,15 +35,22 @@ export function useDeskEdits(
   const [error, setError] = useState<string | null>(null);
   const version = subcatchment.flowPath?.version ?? 0;
 
+  // True once the change is saved (the compute after it may still fail, as it says itself).
   const run = useCallback(
-    async (action: () => Promise<unknown>) => {
+    async (action: () => Promise<unknown>): Promise<boolean> => {
       setError(null);
       try {
         await action();
+      } catch (e) {
+        setError(isApiError(e) ? e.message : "The change could not be saved.");
+        return false;
+      }
+      try {
         await recompute();
       } catch (e) {
         setError(isApiError(e) ? e.message : "The change could not be saved.");
       }
+      return true;
     },
     [recompute],
   );
@@ -85,16 +92,17 @@ export function useDeskEdits(
       }),
     );
 
-  const reversePath = () => run(() => reverse.mutateAsync(version));
+  /** Reverses the saved path; `breaksAfter` (undoing a reversal) are set on the result. */
+  const reversePath = (breaksAfter?: BreakChange) =>
+    run(async () => {
+      const reversed = await reverse.mutateAsync(version);
+      if (breaksAfter && hasBreaks(breaksAfter)) {
+        await breaks.mutateAsync({ ...breaksAfter, version: reversed.flowPath?.version ?? 0 });
+      }
+    });
 
-  const setArea = (ring: LonLat[]) => {
-    if (ring.length < 4) return Promise.resolve();
-    const closed = ring.map(([x, y]): [number, number] => [x, y]);
-    return run(() => update.mutateAsync({ boundary: { type: "Polygon", coordinates: [closed] } }));
-  };
-
-  const setOutlet = (point: LonLat) =>
-    run(() => update.mutateAsync({ outlet: { type: "Point", coordinates: [point[0], point[1]] } }));
+  /** A new boundary or outlet (drawn, or put back by undo or redo). */
+  const setOutline = (patch: OutlineChange) => run(() => update.mutateAsync(patch));
 
   const loadFile = (input: Omit<GeometryFileInput, "version">) =>
     run(() => upload.mutateAsync({ ...input, version }));
@@ -112,8 +120,7 @@ export function useDeskEdits(
     clearElevation,
     setSurface,
     reversePath,
-    setArea,
-    setOutlet,
+    setOutline,
     loadFile,
     busy,
     error,
