@@ -1,81 +1,14 @@
 import path from "node:path";
-import { type Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
-import { guardedContext, type GuardedContext } from "./support/browser";
-import { demoEmail, signIn } from "./support/demo";
-import {
-  openMapDesk,
-  pathVersion,
-  scenarioProject,
-  totalsByMethod,
-  waitForMapIdle,
-} from "./support/map-desk";
+import { SLOW, TRACE, clickAll, coordsOf, openDesk } from "./support/desk-tools";
+import { pathVersion, totalsByMethod } from "./support/map-desk";
 import { useServerAndBrowser } from "./support/session";
 
 const e2e = useServerAndBrowser();
-const SLOW = { timeout: 20_000 };
-
-interface SavedSubcatchment {
-  flowPath: { version: number; geometry: { coordinates: [number, number][] } } | null;
-  boundary: { type: string; coordinates: unknown } | null;
-  outlet: { coordinates: [number, number] } | null;
-  breaks: { sheetEnd: number | null; channelStart: number | null };
-}
-
-interface Desk {
-  guard: GuardedContext;
-  page: Page;
-  subcatchmentId: string;
-  /** The subcatchment as the API has it now. */
-  saved: () => Promise<SavedSubcatchment>;
-  /** A point on the map by its fraction of the map's width and height. */
-  at: (fx: number, fy: number) => { x: number; y: number };
-}
-
-/** The demo engineer on the Map desk of a fresh copy of the demo scenario, its sheet computed. */
-async function openDesk(prefix: string): Promise<Desk> {
-  const guard = await guardedContext(e2e.browser, e2e.server.url);
-  const { page } = guard;
-  const project = await scenarioProject(e2e.browser, e2e.server.url, prefix);
-  await signIn(page, demoEmail("engineer"));
-  await openMapDesk(page, project.name);
-  await page.getByRole("table", { name: "Travel time by segment" }).waitFor();
-  await waitForMapIdle(page);
-  const box = await page.getByTestId("desk-map").boundingBox();
-  if (!box) throw new Error("the map has no size");
-  const saved = async () => {
-    const response = await page.request.get(`/api/subcatchments/${project.subcatchmentId}`);
-    expect(response.ok()).toBe(true);
-    return (await response.json()) as SavedSubcatchment;
-  };
-  const at = (fx: number, fy: number) => ({
-    x: box.x + box.width * fx,
-    y: box.y + box.height * fy,
-  });
-  return { guard, page, subcatchmentId: project.subcatchmentId, saved, at };
-}
-
-/** Clicks the points on the map, a little apart in time as a person would. */
-async function clickAll(desk: Desk, points: readonly (readonly [number, number])[]) {
-  for (const [fx, fy] of points) {
-    const p = desk.at(fx, fy);
-    await desk.page.mouse.click(p.x, p.y);
-    await desk.page.waitForTimeout(150);
-  }
-}
-
-const TRACE = [
-  [0.45, 0.18],
-  [0.47, 0.4],
-  [0.5, 0.6],
-  [0.52, 0.8],
-] as const;
-
-const coordsOf = (s: SavedSubcatchment) => s.flowPath?.geometry.coordinates ?? [];
 
 describe("Map desk tools", () => {
   it("reverses the path, flags the wrong way on the sheet and reverses it back from there", async () => {
-    const desk = await openDesk("Reverse path");
+    const desk = await openDesk(e2e, "Reverse path");
     const { page } = desk;
     const original = coordsOf(await desk.saved());
     const version = await pathVersion(page);
@@ -97,29 +30,8 @@ describe("Map desk tools", () => {
     await desk.guard.close();
   });
 
-  it("undoes a reversal: the path's first point, its breaks and every total come back", async () => {
-    const desk = await openDesk("Undo reverse");
-    const { page } = desk;
-    const before = await desk.saved();
-    const original = coordsOf(before);
-    const totals = JSON.stringify(await totalsByMethod(page));
-    const version = await pathVersion(page);
-
-    await page.getByRole("button", { name: "Reverse path" }).click();
-    await expect.poll(() => pathVersion(page), SLOW).toBe(version + 1);
-    expect(coordsOf(await desk.saved())[0]).toEqual(original.at(-1));
-
-    await page.getByRole("button", { name: "Undo" }).click();
-    await expect.poll(async () => coordsOf(await desk.saved())[0], SLOW).toEqual(original[0]);
-    expect(coordsOf(await desk.saved())).toEqual(original);
-    await expect.poll(async () => (await desk.saved()).breaks, SLOW).toEqual(before.breaks);
-    await expect.poll(async () => JSON.stringify(await totalsByMethod(page)), SLOW).toBe(totals);
-    expect(await page.getByRole("button", { name: "Redo" }).isEnabled()).toBe(true);
-    await desk.guard.close();
-  });
-
   it("splits the path while it is traced, before it is finished, and forgets an unfinished one", async () => {
-    const desk = await openDesk("Live trace");
+    const desk = await openDesk(e2e, "Live trace");
     const { page } = desk;
     const version = await pathVersion(page);
     const savedVersion = (await desk.saved()).flowPath?.version;
@@ -155,67 +67,8 @@ describe("Map desk tools", () => {
     await desk.guard.close();
   });
 
-  it("undoes a traced path back to the one before it, and redoes it", async () => {
-    const desk = await openDesk("Undo trace");
-    const { page } = desk;
-    const original = coordsOf(await desk.saved());
-    const version = await pathVersion(page);
-    const undo = page.getByRole("button", { name: "Undo" });
-    const redo = page.getByRole("button", { name: "Redo" });
-    expect(await undo.isDisabled()).toBe(true);
-
-    await page.getByRole("button", { name: "Trace path" }).click();
-    await clickAll(desk, TRACE);
-    await page.keyboard.press("Enter");
-    await expect.poll(() => pathVersion(page), SLOW).toBe(version + 1);
-    const traced = coordsOf(await desk.saved());
-    expect(traced).toHaveLength(TRACE.length);
-
-    await undo.click();
-    await expect.poll(() => pathVersion(page), SLOW).toBe(version + 2);
-    expect(coordsOf(await desk.saved())).toEqual(original);
-    expect(await redo.isEnabled()).toBe(true);
-
-    await redo.click();
-    await expect.poll(() => pathVersion(page), SLOW).toBe(version + 3);
-    expect(coordsOf(await desk.saved())).toEqual(traced);
-    expect(await redo.isDisabled()).toBe(true);
-    await desk.guard.close();
-  });
-
-  it("undoes a moved break: the break and every method's total come back", async () => {
-    const desk = await openDesk("Undo break");
-    const { page } = desk;
-    const before = await totalsByMethod(page);
-    const breaksBefore = (await desk.saved()).breaks;
-
-    const marker = page.locator('[data-break="sheetEnd"]');
-    const mb = await marker.boundingBox();
-    if (!mb) throw new Error("no break marker");
-    const cx = mb.x + mb.width / 2;
-    const cy = mb.y + mb.height / 2;
-    // The marker snaps to the path wherever it is let go.
-    await page.mouse.move(cx, cy);
-    await page.mouse.down();
-    await page.mouse.move(cx - 25, cy - 25, { steps: 8 });
-    await page.mouse.up();
-    await expect
-      .poll(async () => (await desk.saved()).breaks.sheetEnd, SLOW)
-      .not.toBe(breaksBefore.sheetEnd);
-    await expect
-      .poll(async () => JSON.stringify(await totalsByMethod(page)), SLOW)
-      .not.toBe(JSON.stringify(before));
-
-    await page.getByRole("button", { name: "Undo" }).click();
-    await expect.poll(async () => (await desk.saved()).breaks, SLOW).toEqual(breaksBefore);
-    await expect
-      .poll(async () => JSON.stringify(await totalsByMethod(page)), SLOW)
-      .toBe(JSON.stringify(before));
-    await desk.guard.close();
-  });
-
   it("places the outlet where the engineer clicks", async () => {
-    const desk = await openDesk("Place outlet");
+    const desk = await openDesk(e2e, "Place outlet");
     const { page } = desk;
     const before = (await desk.saved()).outlet?.coordinates ?? null;
 
@@ -230,7 +83,7 @@ describe("Map desk tools", () => {
   });
 
   it("outlines a new area: the subcatchment's area on the sheet changes", async () => {
-    const desk = await openDesk("Outline area");
+    const desk = await openDesk(e2e, "Outline area");
     const { page } = desk;
     const area = page.locator('[data-figure="Area"]');
     const areaBefore = await area.textContent();
@@ -253,7 +106,7 @@ describe("Map desk tools", () => {
   });
 
   it("loads a path file holding one line, and names the problem with a file holding none", async () => {
-    const desk = await openDesk("Load path");
+    const desk = await openDesk(e2e, "Load path");
     const { page } = desk;
     const version = (await desk.saved()).flowPath?.version ?? 0;
 
@@ -283,7 +136,7 @@ describe("Map desk tools", () => {
   });
 
   it("asks, when someone saved the path meanwhile, and keeps the engineer's drawing on request", async () => {
-    const desk = await openDesk("Keep mine");
+    const desk = await openDesk(e2e, "Keep mine");
     const { page } = desk;
     const theirs = coordsOf(await desk.saved()).slice(0, 12);
     const version = (await desk.saved()).flowPath?.version ?? 0;
@@ -308,7 +161,7 @@ describe("Map desk tools", () => {
   });
 
   it("takes the path someone else saved meanwhile when the engineer asks for it", async () => {
-    const desk = await openDesk("Take saved");
+    const desk = await openDesk(e2e, "Take saved");
     const { page } = desk;
     const theirs = coordsOf(await desk.saved()).slice(0, 12);
     const version = (await desk.saved()).flowPath?.version ?? 0;
