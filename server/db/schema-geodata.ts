@@ -21,6 +21,7 @@ import {
   unique,
   uuid,
 } from "drizzle-orm/pg-core";
+import { LAYER_KINDS, LAYER_STATUSES } from "../../shared/schemas/layers";
 import { geometry } from "./geometry";
 import { projects, teams, users } from "./schema";
 
@@ -38,8 +39,6 @@ const projectRef = () =>
     .references(() => projects.id, { onDelete: "cascade" });
 const userRef = (name: string) => uuid(name).references(() => users.id, { onDelete: "set null" });
 
-export const LAYER_KINDS = ["cover", "soil", "terrain", "channel", "boundary"] as const;
-export const LAYER_STATUSES = ["queued", "processing", "ready", "failed"] as const;
 export const SCENARIOS = ["existing", "proposed"] as const;
 export const REGIME_BREAK_KINDS = ["sheet-end", "channel-start"] as const;
 

@@ -16,13 +16,9 @@ import {
 } from "../../shared/schemas/auth";
 import {
   coverMappingBody,
-  layerErrorSchema,
-  layerNoteSchema,
+  fieldValuesSchema,
   layerPollQuery,
-  layerProblemSchema,
-  layerProgressSchema,
-  LAYER_KINDS,
-  LAYER_STATUSES,
+  layerSchema,
   soilMappingBody,
   uploadLayerFields,
 } from "../../shared/schemas/layers";
@@ -36,44 +32,6 @@ import {
   teamSchema,
 } from "../../shared/schemas/team";
 import type { ApiDocs } from "./registry";
-
-const layerSchema = z.object({
-  id: z.string(),
-  projectId: z.string(),
-  kind: z.enum(LAYER_KINDS),
-  name: z.string(),
-  format: z.string(),
-  originalFilename: z.string(),
-  sizeBytes: z.number().int(),
-  status: z.enum(LAYER_STATUSES),
-  progress: layerProgressSchema,
-  error: layerErrorSchema.nullable(),
-  notes: z.array(layerNoteSchema),
-  problems: z.array(layerProblemSchema),
-  featureCount: z.number().int(),
-  fields: z.array(z.string()),
-  mappingField: z.string().nullable(),
-  terrain: z.record(z.string(), z.unknown()).nullable(),
-  bbox4326: z.array(z.number()).nullable(),
-  createdAt: z.string(),
-  updatedAt: z.string(),
-});
-
-const fieldValuesSchema = z.object({
-  field: z.string(),
-  kind: z.enum(["cover", "soil"]),
-  values: z.array(
-    z.object({
-      value: z.string(),
-      featureCount: z.number().int(),
-      mapped: z.string().nullable(),
-      suggestion: z
-        .object({ target: z.string(), label: z.string(), confidence: z.enum(["exact", "likely"]) })
-        .nullable(),
-    }),
-  ),
-  truncated: z.boolean(),
-});
 
 export function registerCorePaths(d: ApiDocs): void {
   const ok = z.object({ ok: z.literal(true) });
