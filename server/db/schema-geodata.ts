@@ -22,6 +22,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { LAYER_KINDS, LAYER_STATUSES } from "../../shared/schemas/layers";
+import { SCENARIOS } from "../../shared/schemas/subcatchments";
 import { geometry } from "./geometry";
 import { projects, teams, users } from "./schema";
 
@@ -39,7 +40,6 @@ const projectRef = () =>
     .references(() => projects.id, { onDelete: "cascade" });
 const userRef = (name: string) => uuid(name).references(() => users.id, { onDelete: "set null" });
 
-export const SCENARIOS = ["existing", "proposed"] as const;
 export const REGIME_BREAK_KINDS = ["sheet-end", "channel-start"] as const;
 
 export const layerKindEnum = pgEnum("layer_kind", LAYER_KINDS);

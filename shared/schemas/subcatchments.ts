@@ -64,7 +64,8 @@ export const channelSchema = z.strictObject({
 });
 
 const name = z.string().trim().min(1, "Enter a name.").max(160, "Use at most 160 characters.");
-const scenario = z.enum(["existing", "proposed"], { error: "must be existing or proposed" });
+export const SCENARIOS = ["existing", "proposed"] as const;
+const scenario = z.enum(SCENARIOS, { error: "must be existing or proposed" });
 
 export const createSubcatchmentBody = z.strictObject({
   name,
