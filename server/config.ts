@@ -37,6 +37,13 @@ const optionalText = z
 const envSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   PORT: port(5180),
+  /** App (HTTP) processes under `npm start`; the worker and the stand-ins are one each. */
+  WEB_CONCURRENCY: z.coerce
+    .number({ message: "Use a whole number." })
+    .int({ message: "Use a whole number." })
+    .min(1, { message: "Use at least 1." })
+    .max(64, { message: "Use at most 64." })
+    .optional(),
   HOST: z.string().min(1).default("127.0.0.1"),
   DATABASE_URL: z
     .string({ message: "Set DATABASE_URL (npm start sets it for the local database)." })
@@ -91,6 +98,8 @@ export interface Config {
   nodeEnv: "development" | "production" | "test";
   port: number;
   host: string;
+  /** How many app processes `npm start` runs (default: one per core). */
+  webProcesses: number;
   databaseUrl: string;
   sessionSecret: string;
   /** Undefined means "the address the server listens on" (resolved once it listens). */
@@ -125,7 +134,7 @@ export interface Config {
 }
 
 export interface StorageConfig {
-  /** A real S3-compatible endpoint; undefined starts the local fake on 127.0.0.1. */
+  /** A real S3-compatible endpoint; undefined starts the local stand-in on 127.0.0.1. */
   endpoint: string | undefined;
   bucket: string;
   region: string;
@@ -180,6 +189,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     nodeEnv: e.NODE_ENV,
     port: e.PORT,
     host: e.HOST,
+    webProcesses: e.WEB_CONCURRENCY ?? os.availableParallelism(),
     databaseUrl: e.DATABASE_URL,
     sessionSecret: e.SESSION_SECRET,
     publicBaseUrl: e.PUBLIC_BASE_URL?.replace(/\/+$/, ""),

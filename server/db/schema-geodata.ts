@@ -111,6 +111,13 @@ export const layers = pgTable(
     /** Terrain: { width, height, crs, verticalUnit, nodata, bbox4326, pixelSize, ... } */
     terrain: jsonb("terrain"),
     bbox4326: jsonb("bbox_4326"),
+    /**
+     * Set by the process reading the file, every few seconds while it runs: a layer still
+     * queued or processing whose heartbeat has stopped was interrupted (see ingest-sweep.ts).
+     */
+    ingestHeartbeatAt: at("ingest_heartbeat_at"),
+    /** How many times reading the file has started (an interrupted read is tried again once). */
+    ingestAttempts: integer("ingest_attempts").notNull().default(0),
     createdBy: userRef("created_by"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

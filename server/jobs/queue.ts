@@ -2,8 +2,11 @@ import { sql } from "drizzle-orm";
 import PgBoss from "pg-boss";
 import type { Tx } from "../db/client";
 import { LayerEvents } from "./layer-events";
+import { startNotifications, type Notifications } from "./notifications";
 
 export const LAYER_INGEST_QUEUE = "layer-ingest";
+/** NOTIFY channel that wakes the ingest workers of every process when a job is queued. */
+const INGEST_QUEUED_CHANNEL = "rillmark_ingest_queued";
 
 export interface IngestJobData {
   layerId: string;
@@ -19,8 +22,8 @@ export interface JobQueue {
   /** Queues the reading of an uploaded layer; answers the job id. */
   sendIngest(data: IngestJobData): Promise<string>;
   deleteJob(jobId: string): Promise<void>;
-  /** Remembers a worker of this process, so a new job wakes it at once instead of a poll. */
-  addIngestWorker(workerId: string): void;
+  /** Wakes a worker of this process whenever any process queues an ingest (else it polls). */
+  addIngestWorker(workerId: string): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -28,7 +31,7 @@ export interface JobQueueOptions {
   connectionString: string;
   /** Appended to queue names (tests: one per app sharing a database). */
   queueSuffix: string;
-  /** Run maintenance (archiving, expiry); off in tests, which stop within seconds. */
+  /** Run maintenance (archiving, expiry): the worker process does, web processes do not. */
   supervise: boolean;
   /** Drop this app's queues on close (tests, whose queue names are their own). */
   deleteQueuesOnClose?: boolean;
@@ -46,28 +49,45 @@ export async function startJobQueue(options: JobQueueOptions): Promise<JobQueue>
   const ingestQueue = `${LAYER_INGEST_QUEUE}${options.queueSuffix}`;
   await boss.createQueue(ingestQueue, {
     name: ingestQueue,
-    // A job's failures are recorded on the layer; a retry is only for a crashed process.
-    retryLimit: 1,
+    // A job's failures are recorded on the layer, and an interrupted one is resumed by the
+    // ingest sweep (server/jobs/ingest-sweep.ts); pg-boss's own retry would only duplicate it.
+    retryLimit: 0,
     expireInSeconds: 30 * 60,
   });
-  const ingestWorkers: string[] = [];
+  let notifications: Notifications | undefined;
+  try {
+    notifications = await startNotifications(options.connectionString);
+  } catch (err) {
+    await boss.stop({ graceful: false, wait: true });
+    throw err;
+  }
+  const send = async (channel: string, payload: string) => {
+    await boss.getDb().executeSql("select pg_notify($1, $2)", [channel, payload]);
+  };
+  const events = await LayerEvents.start(send, notifications);
+  const wake = JSON.stringify({ queue: ingestQueue });
   return {
     boss,
     ingestQueue,
-    events: new LayerEvents(),
+    events,
     async sendIngest(data) {
       const id = await boss.send(ingestQueue, data);
       if (!id) throw new Error("the job queue refused the ingest job");
-      for (const worker of ingestWorkers) boss.notifyWorker(worker);
+      await send(INGEST_QUEUED_CHANNEL, wake).catch(() => undefined); // workers poll anyway
       return id;
     },
-    addIngestWorker(workerId) {
-      ingestWorkers.push(workerId);
+    async addIngestWorker(workerId) {
+      await notifications.listen(INGEST_QUEUED_CHANNEL, (payload) => {
+        if ((payload as { queue?: unknown } | null)?.queue === ingestQueue) {
+          boss.notifyWorker(workerId);
+        }
+      });
     },
     async deleteJob(jobId) {
       await boss.deleteJob(ingestQueue, jobId);
     },
     async close() {
+      await notifications.close();
       if (options.deleteQueuesOnClose) {
         await boss.offWork(ingestQueue);
         await boss.deleteQueue(ingestQueue);

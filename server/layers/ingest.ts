@@ -1,14 +1,14 @@
 import { randomUUID } from "node:crypto";
-import { existsSync } from "node:fs";
-import { mkdir, rm } from "node:fs/promises";
+import { mkdir, rename, rm } from "node:fs/promises";
 import path from "node:path";
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray, sql } from "drizzle-orm";
 import type { LayerError, LayerProgress } from "../../shared/schemas/layers";
 import type { Db, Tx } from "../db/client";
 import { layers } from "../db/schema-geodata";
 import { ReadError, VECTOR_FORMATS, type VectorFormat } from "../geodata/readers/types";
 import { inspectTerrain } from "../geodata/terrain";
 import type { LayerEvents } from "../jobs/layer-events";
+import { INGEST_HEARTBEAT_MS } from "../jobs/ingest-timing";
 import { parseVectorInThread } from "../jobs/parse-thread";
 import type { ObjectStore } from "../storage";
 import type { LayerRow } from "./dto";
@@ -41,7 +41,7 @@ function progressReporter(deps: IngestDeps, row: LayerRow) {
       .set({ progress: current, status: "processing" })
       // Never over a final status: a late report must not revive a failed layer.
       .where(and(eq(layers.id, row.id), inArray(layers.status, ["queued", "processing"])));
-    deps.events.emit({ layerId: row.id, status: "processing" });
+    void deps.events.emit({ layerId: row.id, status: "processing" });
   };
 }
 
@@ -110,6 +110,49 @@ async function ingestTerrain(deps: IngestDeps, row: LayerRow, filePath: string, 
   });
 }
 
+/**
+ * Puts the file to read at `target`, in this process's work folder (removed with the folder
+ * should the process die): the upload's temp file moved there when it is on this machine, else
+ * a download of the stored original.
+ */
+async function takeFile(
+  deps: IngestDeps,
+  objectKey: string,
+  uploadPath: string | undefined,
+  target: string,
+) {
+  await mkdir(deps.workDir, { recursive: true });
+  if (uploadPath) {
+    try {
+      await rename(uploadPath, target);
+      return;
+    } catch {
+      // Gone (its process died and the folder was cleaned) or on another disk: download it.
+    }
+  }
+  await deps.store.getToFile(objectKey, target);
+}
+
+/**
+ * Counts the attempt and keeps the layer's heartbeat fresh while this process reads it, so the
+ * ingest sweep can tell a running read from one whose process died (a pg-boss job alone would
+ * look active for its whole expiry, 30 minutes). Answers the function that stops it.
+ */
+async function startHeartbeat(db: Db, layerId: string): Promise<() => void> {
+  const unsettled = and(eq(layers.id, layerId), inArray(layers.status, ["queued", "processing"]));
+  await db
+    .update(layers)
+    .set({ ingestHeartbeatAt: sql`now()`, ingestAttempts: sql`${layers.ingestAttempts} + 1` })
+    .where(unsettled);
+  const timer = setInterval(() => {
+    db.update(layers)
+      .set({ ingestHeartbeatAt: sql`now()` })
+      .where(unsettled)
+      .catch((err: unknown) => console.error(`Heartbeat of layer ${layerId} failed:`, err));
+  }, INGEST_HEARTBEAT_MS);
+  return () => clearInterval(timer);
+}
+
 function toLayerError(err: unknown): LayerError {
   if (err instanceof ReadError) {
     return {
@@ -147,18 +190,13 @@ export async function ingestLayer(
     if (uploadPath) await rm(uploadPath, { force: true });
     return;
   }
-  let filePath = uploadPath && existsSync(uploadPath) ? uploadPath : undefined;
-  let downloaded: string | undefined;
+  const stopHeartbeat = await startHeartbeat(deps.db, layerId);
+  const filePath = path.join(deps.workDir, `ingest-${randomUUID()}`);
   try {
-    if (!filePath) {
-      await mkdir(deps.workDir, { recursive: true });
-      downloaded = path.join(deps.workDir, `ingest-${randomUUID()}`);
-      await deps.store.getToFile(row.objectKey, downloaded);
-      filePath = downloaded;
-    }
+    await takeFile(deps, row.objectKey, uploadPath, filePath);
     if (row.kind === "terrain") await ingestTerrain(deps, row, filePath, onFinal);
     else await ingestVector(deps, row, filePath, row.format, onFinal);
-    deps.events.emit({ layerId, status: "ready" });
+    await deps.events.emit({ layerId, status: "ready" });
   } catch (err) {
     const error = toLayerError(err);
     await deps.store.delete(row.objectKey).catch((e: unknown) => {
@@ -171,9 +209,10 @@ export async function ingestLayer(
         .where(eq(layers.id, layerId));
       await onFinal(tx);
     });
-    deps.events.emit({ layerId, status: "failed" });
+    await deps.events.emit({ layerId, status: "failed" });
   } finally {
+    stopHeartbeat();
     if (uploadPath) await rm(uploadPath, { force: true });
-    if (downloaded) await rm(downloaded, { force: true });
+    await rm(filePath, { force: true });
   }
 }

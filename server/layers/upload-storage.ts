@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { createWriteStream, mkdirSync, rmSync } from "node:fs";
 import { readdir, rm, stat } from "node:fs/promises";
+import os from "node:os";
 import path from "node:path";
 import { Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
@@ -68,7 +69,7 @@ export function singleFileUpload(
 ): RequestHandler[] {
   const largest = Math.max(...Object.values(config.limitsBytes));
   const upload = multer({
-    storage: limitedDiskStorage(config.dir, limitOf),
+    storage: limitedDiskStorage(processUploadDir(config.dir), limitOf),
     limits: { files: 1, fields: 10, fieldSize: 10_000, fileSize: largest, parts: 12 },
   }).single("file");
   const refuseEarly: RequestHandler = (req, _res, next) => {
@@ -104,10 +105,44 @@ export const uploadErrors: ErrorRequestHandler = (err: unknown, _req, _res, next
 export type { LimitKind };
 
 /**
- * Removes upload temp files left by a process that stopped mid-upload (ours are named
- * upload-… and work/ingest-…); a running job's file is younger than `maxAgeMs`.
+ * This process's own folder for temp files (uploads being received, files being read), named
+ * by host and process id so that a process can tell which folders belong to dead processes.
  */
-export async function removeStaleUploads(dir: string, maxAgeMs = 24 * 3_600_000): Promise<void> {
+export function processUploadDir(base: string): string {
+  return path.join(base, `${os.hostname()}-${process.pid}`);
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (err) {
+    // EPERM: it exists but belongs to someone else.
+    return (err as NodeJS.ErrnoException).code === "EPERM";
+  }
+}
+
+/**
+ * Removes the temp folders of this host's processes that are no longer running (a crash leaves
+ * its uploads and half-read files behind), and the flat temp files older versions left.
+ */
+export async function removeDeadProcessUploads(base: string): Promise<void> {
+  const prefix = `${os.hostname()}-`;
+  const entries = await readdir(base, { withFileTypes: true }).catch(() => []);
+  for (const entry of entries) {
+    const full = path.join(base, entry.name);
+    if (entry.isDirectory() && entry.name.startsWith(prefix)) {
+      const pid = Number(entry.name.slice(prefix.length));
+      if (Number.isInteger(pid) && pid > 0 && pid !== process.pid && !isAlive(pid)) {
+        await rm(full, { recursive: true, force: true });
+      }
+    }
+  }
+  await removeLegacyTempFiles(base);
+}
+
+/** Flat upload-… and work/ingest-… files from before per-process folders, a day old. */
+async function removeLegacyTempFiles(dir: string, maxAgeMs = 24 * 3_600_000): Promise<void> {
   const cutoff = Date.now() - maxAgeMs;
   for (const [folder, prefix] of [
     [dir, "upload-"],

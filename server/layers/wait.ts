@@ -4,11 +4,13 @@ import { layers } from "../db/schema-geodata";
 import type { LayerEvents } from "../jobs/layer-events";
 import type { LayerRow } from "./dto";
 
-const POLL_MS = 500;
+const settled = (status: string) => status === "ready" || status === "failed";
 
 /**
- * The layer row once it is ready or failed, or as it stands after `timeoutMs`. News from this
- * process's jobs arrives at once; a job run by another process is seen by polling the row.
+ * The layer row once it is ready or failed, or as it stands after `timeoutMs`. Whichever
+ * process runs the job announces the end (LISTEN/NOTIFY); the row is read again on that news,
+ * never on a timer. The subscription starts before the first read, so an end announced in
+ * between is not missed.
  */
 export async function waitForLayer(
   db: Db,
@@ -18,22 +20,32 @@ export async function waitForLayer(
 ): Promise<LayerRow | undefined> {
   const read = async () => (await db.select().from(layers).where(eq(layers.id, layerId)))[0];
   const deadline = Date.now() + timeoutMs;
-  let row = await read();
-  while (row && (row.status === "queued" || row.status === "processing")) {
-    const left = deadline - Date.now();
-    if (left <= 0) break;
-    await new Promise<void>((resolve) => {
-      const timer = setTimeout(done, Math.min(left, POLL_MS));
-      const off = events.on(layerId, (change) => {
-        if (change.status === "ready" || change.status === "failed") done();
-      });
-      function done() {
-        clearTimeout(timer);
-        off();
-        resolve();
+  let heard = false;
+  let wake: () => void = () => undefined;
+  const off = events.on(layerId, (news) => {
+    if (news.status === "processing" || news.status === "queued") return;
+    heard = true;
+    wake();
+  });
+  try {
+    let row = await read();
+    while (row && !settled(row.status)) {
+      const left = deadline - Date.now();
+      if (left <= 0) break;
+      if (!heard) {
+        await new Promise<void>((resolve) => {
+          const timer = setTimeout(resolve, left);
+          wake = () => {
+            clearTimeout(timer);
+            resolve();
+          };
+        });
       }
-    });
-    row = await read();
+      heard = false;
+      row = await read();
+    }
+    return row;
+  } finally {
+    off();
   }
-  return row;
 }

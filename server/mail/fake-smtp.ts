@@ -1,9 +1,21 @@
+import { createHash, timingSafeEqual } from "node:crypto";
 import type { AddressInfo } from "node:net";
 import type { Readable } from "node:stream";
 import { simpleParser, type AddressObject } from "mailparser";
 import { SMTPServer } from "smtp-server";
 import type { Db } from "../db/client";
 import { outboxMessages } from "../db/schema";
+
+export interface SmtpCredentials {
+  user: string;
+  pass: string;
+}
+
+/** Compares without leaking where two strings differ (hashes first: equal lengths). */
+function sameSecret(given: string | null | undefined, expected: string): boolean {
+  const digest = (v: string) => createHash("sha256").update(v).digest();
+  return timingSafeEqual(digest(given ?? ""), digest(expected));
+}
 
 export interface FakeSmtp {
   port: number;
@@ -27,17 +39,31 @@ function addressText(value: AddressObject | AddressObject[] | undefined): string
  * A mail server on loopback that keeps every message in outbox_messages, so development and
  * tests send real SMTP without any mail leaving the machine. Read it on the Outbox page.
  */
-export async function startFakeSmtp(db: Db, port = 0): Promise<FakeSmtp> {
+export async function startFakeSmtp(
+  db: Db,
+  credentials: SmtpCredentials,
+  port = 0,
+): Promise<FakeSmtp> {
   const server = new SMTPServer({
     name: "rillmark-outbox.localhost",
     banner: "Rillmark local outbox (nothing is delivered)",
-    authOptional: true,
+    // Anyone on the machine could otherwise write into the Outbox: AUTH first, always.
+    authOptional: false,
+    authMethods: ["PLAIN", "LOGIN"],
+    // Loopback only and nothing leaves the machine: no TLS, so AUTH goes in the clear.
     allowInsecureAuth: true,
     disabledCommands: ["STARTTLS"],
     size: MAX_MESSAGE_BYTES,
     logger: false,
     onAuth(auth, _session, callback) {
-      callback(null, { user: auth.username ?? "local" });
+      if (
+        sameSecret(auth.username, credentials.user) &&
+        sameSecret(auth.password, credentials.pass)
+      ) {
+        callback(null, { user: credentials.user });
+      } else {
+        callback(Object.assign(new Error("Invalid username or password"), { responseCode: 535 }));
+      }
     },
     onData(stream, session, callback) {
       const store = async () => {

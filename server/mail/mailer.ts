@@ -18,26 +18,23 @@ export interface SmtpTarget {
   requireTls: boolean;
 }
 
-/** The configured SMTP server, or the local fake one listening on `fakeSmtpPort`. */
-export function smtpTarget(config: Config, fakeSmtpPort?: number): SmtpTarget {
-  if (config.smtp.host) {
-    return { ...config.smtp, host: config.smtp.host, requireTls: !config.smtp.secure };
-  }
-  if (fakeSmtpPort === undefined) {
-    throw new Error("No SMTP_HOST configured and no local mail server started.");
-  }
-  return {
-    host: "127.0.0.1",
-    port: fakeSmtpPort,
-    secure: false,
-    user: undefined,
-    pass: undefined,
-    requireTls: false,
-  };
+/**
+ * The configured SMTP server (under `npm start` without SMTP_HOST: the local stand-in, which the
+ * supervisor configures like any other). TLS is required of a mail server elsewhere; one on
+ * this machine (the stand-in, a local relay) is reached without leaving it.
+ */
+export function smtpTarget(config: Config): SmtpTarget {
+  const host = config.smtp.host;
+  if (!host) throw new Error("No SMTP_HOST configured and no local mail stand-in started.");
+  return { ...config.smtp, host, requireTls: !config.smtp.secure && !isLoopback(host) };
+}
+
+function isLoopback(host: string): boolean {
+  return host === "localhost" || host === "::1" || /^127(\.\d{1,3}){3}$/.test(host);
 }
 
 export function createMailer(target: SmtpTarget, from: string): Mailer {
-  const local = target.host === "127.0.0.1" && !target.requireTls;
+  const local = isLoopback(target.host) && !target.requireTls;
   const transport = nodemailer.createTransport({
     host: target.host,
     port: target.port,

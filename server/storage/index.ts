@@ -1,29 +1,32 @@
 import type { StorageConfig } from "../config";
-import { FAKE_S3_CREDENTIALS, startFakeS3 } from "./fake-s3";
+import { newStandInCredentials } from "../standins";
+import { startFakeS3 } from "./fake-s3";
 import { ObjectStore } from "./object-store";
 
 export { ObjectStore } from "./object-store";
 
 export interface RunningStorage {
   store: ObjectStore;
-  /** The local fake's address, when one was started. */
+  /** The local stand-in's address, when this call started one. */
   fakeEndpoint: string | undefined;
   close(): Promise<void>;
 }
 
 /**
- * The object store the app uses: the configured bucket, or (no S3_ENDPOINT) a local
- * S3-compatible fake on 127.0.0.1 keeping its files under `fakeDir`.
+ * The object store the app uses: the configured bucket (under `npm start`, the stand-in
+ * process's), or (no S3_ENDPOINT: tests, benches) an S3 stand-in started here on 127.0.0.1,
+ * with its files under `fakeDir` and credentials of its own.
  */
 export async function startStorage(config: StorageConfig): Promise<RunningStorage> {
-  const fake = config.endpoint
-    ? undefined
-    : await startFakeS3(config.fakeDir, config.bucket, config.fakePort);
-  const credentials = fake
-    ? { ...FAKE_S3_CREDENTIALS }
-    : config.accessKeyId && config.secretAccessKey
+  const own = config.endpoint ? undefined : newStandInCredentials().s3;
+  const fake = own
+    ? await startFakeS3(config.fakeDir, config.bucket, own, config.fakePort)
+    : undefined;
+  const credentials =
+    own ??
+    (config.accessKeyId && config.secretAccessKey
       ? { accessKeyId: config.accessKeyId, secretAccessKey: config.secretAccessKey }
-      : undefined; // the SDK's own chain: environment, instance role, …
+      : undefined); // the SDK's own chain: environment, instance role, …
   const endpoint = fake?.endpoint ?? config.endpoint;
   if (!endpoint) throw new Error("no object storage endpoint");
   const store = new ObjectStore({

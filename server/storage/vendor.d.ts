@@ -1,9 +1,7 @@
-// Types for the part of s3rver (the local S3-compatible fake) that server/storage calls.
+// Types for the part of s3rver (the local S3-compatible stand-in) that server/storage calls.
 declare module "s3rver" {
-  import type { AddressInfo } from "node:net";
+  import type { IncomingMessage, ServerResponse } from "node:http";
   interface S3rverOptions {
-    address?: string;
-    port?: number;
     silent?: boolean;
     directory?: string;
     resetOnClose?: boolean;
@@ -13,7 +11,9 @@ declare module "s3rver" {
   }
   export default class S3rver {
     constructor(options: S3rverOptions);
-    run(): Promise<AddressInfo>;
-    close(): Promise<void>;
+    /** Creates the configured buckets (run() does it before listening). */
+    configureBuckets(): Promise<void>;
+    /** The Koa request handler, for a server of the caller's own. */
+    getMiddleware(): (req: IncomingMessage, res: ServerResponse) => void;
   }
 }

@@ -12,10 +12,11 @@ import { createSessionStore, SESSION_COOKIE } from "../../server/auth/session";
 import { loadConfig, type AppConfig } from "../../server/config";
 import { connectDatabase, type Db } from "../../server/db/client";
 import { memberships, outboxMessages, teams, users } from "../../server/db/schema";
-import { startFakeSmtp, type FakeSmtp } from "../../server/mail/fake-smtp";
+import { startFakeSmtp, type FakeSmtp, type SmtpCredentials } from "../../server/mail/fake-smtp";
 import { startJobQueue, type JobQueue } from "../../server/jobs/queue";
 import { startWorkers } from "../../server/jobs/workers";
 import { createMailer } from "../../server/mail/mailer";
+import { newStandInCredentials } from "../../server/standins";
 import { startStorage, type ObjectStore } from "../../server/storage";
 import { ROLES, type Role } from "../../shared/roles";
 
@@ -31,6 +32,8 @@ export interface TestApp {
   pool: pg.Pool;
   config: AppConfig;
   smtp: FakeSmtp;
+  /** What the app's mailer signs in to its SMTP stand-in with. */
+  smtpCredentials: SmtpCredentials;
   /** The app's own object store (a local S3 fake in a temp folder). */
   store: ObjectStore;
   /** The app's own job queue (queue names unique to this app). */
@@ -74,14 +77,16 @@ export function testConfig(overrides: Partial<AppConfig> = {}, tempDir?: string)
 }
 
 /**
- * The real app on the real test database, with its own fake SMTP and S3 servers on random
- * ports, its own job queue and its own temp folder (removed on close).
+ * The real app on the real test database, with its own SMTP and S3 stand-ins on random ports
+ * (each with credentials of its own), its own job queue and its own temp folder (removed on
+ * close).
  */
 export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
   const tempDir = mkdtempSync(path.join(os.tmpdir(), "rillmark-test-"));
   const config = testConfig(overrides, tempDir);
   const { pool, db } = connectDatabase(config.databaseUrl, 5);
-  const smtp = await startFakeSmtp(db, 0);
+  const smtpCredentials = newStandInCredentials().smtp;
+  const smtp = await startFakeSmtp(db, smtpCredentials, 0);
   const storage = await startStorage(config.storage);
   const jobs = await startJobQueue({
     connectionString: config.databaseUrl,
@@ -89,14 +94,15 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     supervise: false,
     deleteQueuesOnClose: true,
   });
-  await startWorkers({ db, store: storage.store, jobs, config });
+  // Test apps share one database but each has its own store: no sweeping of others' layers.
+  const workers = await startWorkers({ db, store: storage.store, jobs, config, sweep: false });
   const mailer = createMailer(
     {
       host: "127.0.0.1",
       port: smtp.port,
       secure: false,
-      user: undefined,
-      pass: undefined,
+      user: smtpCredentials.user,
+      pass: smtpCredentials.pass,
       requireTls: false,
     },
     config.mailFrom,
@@ -109,6 +115,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     pool,
     config,
     smtp,
+    smtpCredentials,
     store: storage.store,
     jobs,
     agent: () => supertest.agent(app).set("Origin", config.publicBaseUrl),
@@ -116,6 +123,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
       sessionStore.close();
       await mailer.close();
       await smtp.close();
+      await workers.stop();
       await jobs.close();
       await storage.close();
       if (!pool.ending) await pool.end();
