@@ -81,7 +81,10 @@ export function testConfig(overrides: Partial<AppConfig> = {}, tempDir?: string)
  * (each with credentials of its own), its own job queue and its own temp folder (removed on
  * close).
  */
-export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
+export async function startTestApp(
+  overrides: Partial<AppConfig> = {},
+  options: { workers?: boolean } = {},
+): Promise<TestApp> {
   const tempDir = mkdtempSync(path.join(os.tmpdir(), "rillmark-test-"));
   const config = testConfig(overrides, tempDir);
   const { pool, db } = connectDatabase(config.databaseUrl, 5);
@@ -92,10 +95,14 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     connectionString: config.databaseUrl,
     queueSuffix: config.jobQueueSuffix,
     supervise: false,
-    deleteQueuesOnClose: true,
+    deleteQueuesOnClose: options.workers !== false,
   });
   // Test apps share one database but each has its own store: no sweeping of others' layers.
-  const workers = await startWorkers({ db, store: storage.store, jobs, config, sweep: false });
+  // workers: false when a separate worker (server/processes/worker.ts) runs this app's jobs.
+  const workers =
+    options.workers === false
+      ? { stop: () => Promise.resolve() }
+      : await startWorkers({ db, store: storage.store, jobs, config, sweep: false });
   const mailer = createMailer(
     {
       host: "127.0.0.1",
