@@ -60,7 +60,8 @@ export class Supervised {
     child.once("exit", (code, signal) => {
       if (this.stopping || this.child !== child) return;
       const lived = Date.now() - startedAt;
-      this.backoffMs = lived > 60_000 ? 500 : Math.min(this.backoffMs * 2, MAX_BACKOFF_MS);
+      // Died while starting: likely to again (a bad setting), so wait longer each time.
+      this.backoffMs = lived > 10_000 ? 500 : Math.min(this.backoffMs * 2, MAX_BACKOFF_MS);
       console.warn(
         `The ${this.role} process ${child.pid} stopped (${signal ?? `exit ${code}`}); ` +
           `starting another in ${this.backoffMs / 1000} s.`,
@@ -74,7 +75,11 @@ export class Supervised {
     if (this.stopping) return;
     this.start().then(
       (ready) => this.onRestarted(ready),
-      (err: unknown) => console.error(`The ${this.role} process did not start again:`, err),
+      (err: unknown) =>
+        console.error(
+          `The ${this.role} process stopped before it was ready:`,
+          (err as Error).message,
+        ),
     );
   }
 
