@@ -32,6 +32,9 @@ export function createSessionStore(
     tableName: SESSION_TABLE,
     createTableIfMissing: false,
     pruneSessionInterval: options.pruneIntervalSeconds,
+    // The cookie's expiry is fixed at sign-in (rolling: false), so moving the row's expiry on
+    // every request only wrote a row per request and let it outlive the cookie.
+    disableTouch: true,
   });
 }
 

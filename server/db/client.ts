@@ -6,7 +6,7 @@ import * as geodataSchema from "./schema-geodata";
 
 const schema = { ...coreSchema, ...geodataSchema, ...basemapSchema };
 
-export type Db = NodePgDatabase<typeof schema>;
+export type Db = NodePgDatabase<typeof schema> & { $client: pg.Pool };
 /** The handle inside `db.transaction(async (tx) => …)`. */
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** Query helpers take either, so they compose inside a caller's transaction. */
@@ -18,7 +18,13 @@ export interface Database {
 }
 
 export function connectDatabase(databaseUrl: string, max = 10): Database {
-  const pool = new pg.Pool({ connectionString: databaseUrl, max });
+  const pool = new pg.Pool({
+    connectionString: databaseUrl,
+    max,
+    // A new connection's first spatial query loads PostGIS into its backend (about 0.1 s here);
+    // closing idle ones after pg's default 10 s paid that again after every pause.
+    idleTimeoutMillis: 5 * 60_000,
+  });
   // An idle client losing its connection (database restart) must not crash the process.
   pool.on("error", (err) => console.error("PostgreSQL pool error:", err.message));
   return { pool, db: drizzle(pool, { schema }) };

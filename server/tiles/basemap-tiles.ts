@@ -9,13 +9,17 @@
  */
 import { sql } from "drizzle-orm";
 import type { Db } from "../db/client";
+import { executePrepared } from "../db/prepared";
 import type { TileCoords } from "./coords";
 
 const EXTENT = 4096;
 const BUFFER = 64;
 
 export async function basemapTile(db: Db, t: TileCoords): Promise<Uint8Array> {
-  const result = await db.execute<{ tile: Buffer | null }>(sql`
+  const rows = await executePrepared<{ tile: Buffer | null }>(
+    db,
+    "basemap-tile",
+    sql`
     with bounds as (
       select ST_TileEnvelope(${t.z}::int, ${t.x}::int, ${t.y}::int) as env,
              ST_Transform(
@@ -54,7 +58,8 @@ export async function basemapTile(db: Db, t: TileCoords): Promise<Uint8Array> {
         || coalesce((select ST_AsMVT(buildings, 'buildings', ${EXTENT}, 'geom') from buildings), '')
         || coalesce((select ST_AsMVT(contours, 'contours', ${EXTENT}, 'geom') from contours), '')
         || coalesce((select ST_AsMVT(places, 'places', ${EXTENT}, 'geom') from places), '')
-        as tile`);
-  const tile = result.rows[0]?.tile;
+        as tile`,
+  );
+  const tile = rows[0]?.tile;
   return tile ? new Uint8Array(tile.buffer, tile.byteOffset, tile.byteLength) : new Uint8Array();
 }

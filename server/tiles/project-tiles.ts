@@ -15,6 +15,7 @@
  */
 import { sql, type SQL } from "drizzle-orm";
 import type { Db } from "../db/client";
+import { executePrepared } from "../db/prepared";
 import type { TileCoords } from "./coords";
 
 /** Bump when the tile's content changes shape, so clients drop tiles cached under old ETags. */
@@ -112,8 +113,12 @@ export function projectTileQuery(projectId: string, t: TileCoords): SQL {
 }
 
 export async function projectTile(db: Db, projectId: string, t: TileCoords): Promise<Uint8Array> {
-  const result = await db.execute<{ tile: Buffer | null }>(projectTileQuery(projectId, t));
-  const tile = result.rows[0]?.tile;
+  const rows = await executePrepared<{ tile: Buffer | null }>(
+    db,
+    "project-tile",
+    projectTileQuery(projectId, t),
+  );
+  const tile = rows[0]?.tile;
   return tile ? new Uint8Array(tile.buffer, tile.byteOffset, tile.byteLength) : new Uint8Array();
 }
 
