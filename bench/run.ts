@@ -9,6 +9,7 @@ import { run as readers } from "./readers";
 import { run as compute } from "./compute";
 import { run as tiles } from "./tiles";
 import { run as mapDesk } from "./map";
+import { run as load } from "./load";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -19,6 +20,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "demo compute", run: compute },
   { name: "map tiles", run: tiles },
   { name: "map desk", run: mapDesk },
+  { name: "several processes", run: load },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

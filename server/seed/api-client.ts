@@ -64,6 +64,11 @@ export class ApiClient {
     return { status: res.status, body };
   }
 
+  /** The session cookie, as a Cookie header value (load tests send it from their own client). */
+  get cookieHeader(): string {
+    return this.cookie;
+  }
+
   get<T>(route: string): Promise<T> {
     return this.send<T>("GET", route, {}).then((r) => r.body);
   }
