@@ -7,6 +7,7 @@ import { run as split } from "./split";
 import { run as ingest } from "./ingest";
 import { run as readers } from "./readers";
 import { run as compute } from "./compute";
+import { run as foreignData } from "./foreign-data";
 import { run as tiles } from "./tiles";
 import { run as mapDesk } from "./map";
 import { run as load } from "./load";
@@ -18,6 +19,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "file readers", run: readers },
   { name: "layer upload pipeline", run: ingest },
   { name: "demo compute", run: compute },
+  { name: "compute among other teams' data", run: foreignData },
   { name: "map tiles", run: tiles },
   { name: "map desk", run: mapDesk },
   { name: "several processes", run: load },

@@ -151,7 +151,9 @@ export async function run(): Promise<BenchRow[]> {
     const plan = await t.db.execute<{ "QUERY PLAN": string }>(
       sql`explain ${projectTileQuery(project.id, { z: 16, ...tileRange(16), x: tileRange(16).x0 + 3, y: tileRange(16).y0 + 3 })}`,
     );
-    const usesGist = plan.rows.some((r) => r["QUERY PLAN"].includes("layer_features_geom_gist"));
+    const usesGist = plan.rows.some((r) =>
+      r["QUERY PLAN"].includes("layer_features_layer_geom_gist"),
+    );
     rows.push({
       name: "tile query uses the GiST index (EXPLAIN, z 16)",
       value: usesGist ? "yes" : "no",

@@ -145,7 +145,9 @@ export const layerFeatures = pgTable(
   },
   (t) => [
     unique("layer_features_layer_index").on(t.layerId, t.featureIndex),
-    index("layer_features_geom_gist").using("gist", t.geom),
+    // Layer first, then geometry (btree_gist): a box query for one layer reads only that
+    // layer's features, however many other projects keep in the same place.
+    index("layer_features_layer_geom_gist").using("gist", t.layerId, t.geom),
   ],
 );
 

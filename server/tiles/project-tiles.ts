@@ -1,8 +1,8 @@
 /**
  * A project's layers as one Mapbox Vector Tile, built by PostGIS in one query: each source-layer
  * is ST_AsMVT over ST_AsMVTGeom (Web Mercator, 4096 units, 64 units of buffer, clipped), and the
- * concatenated layers make the tile. Features are found through the GiST index on their 4326
- * geometry with the tile's envelope (plus the buffer) transformed to 4326.
+ * concatenated layers make the tile. Features are found through the (layer_id, geom) GiST index
+ * with the tile's envelope (plus the buffer) transformed to 4326.
  *
  * Source-layers (the map desk's contract):
  *   cover          featureId, layerId, classId, classKey, className, colour (null class: unmapped)
@@ -57,7 +57,7 @@ export function projectTileQuery(projectId: string, t: TileCoords): SQL {
     ),
     features as (
       -- Per layer (a lateral join): a layer left out at this zoom is never scanned, and each
-      -- layer's features are found through the GiST index on their geometry.
+      -- layer's features are found through the (layer_id, geom) GiST index.
       select f.id, f.layer_id, l.kind, f.surface_class_id, f.hsg,
              ST_AsMVTGeom(ST_Transform(f.geom, 3857), b.env, ${EXTENT}, ${BUFFER}, true) as geom
       from project_layers l

@@ -5,7 +5,7 @@
  * the average land slope from terrain samples on a grid over the boundary.
  */
 import { createHash } from "node:crypto";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { Geometry } from "geojson";
 import {
   averageLandSlopePercent,
@@ -17,6 +17,7 @@ import { M2_PER_ACRE, M2_PER_HA } from "../../../shared/hydrology/units";
 import { resolveHsg, type SurfaceParams } from "../../../shared/sheet/rows";
 import type { HsgCode } from "../../../shared/geo";
 import type { Db } from "../../db/client";
+import { projectFeaturesNear } from "../project-features";
 import type { TerrainSampler } from "../terrain";
 import { polygonParts } from "./load";
 
@@ -69,29 +70,34 @@ async function areaKey(db: Db, projectId: string, subcatchmentId: string): Promi
   return `${subcatchmentId}|${row?.b ?? ""}|${row?.l ?? ""}`;
 }
 
-/** Cover × soil pieces inside the boundary, area per (class, HSG); plus cover alone. */
-async function coverSoilAreas(db: Db, projectId: string, subcatchmentId: string) {
-  const key = await areaKey(db, projectId, subcatchmentId);
-  const cached = AREA_CACHE.get(key);
-  if (cached) return cached;
-  const result = await db.execute<WeightRow>(sql`
-    with b as (select boundary as g from subcatchments where id = ${subcatchmentId}),
-    c as (
-      select f.surface_class_id, ST_Intersection(f.geom, b.g) as g
-      from layer_features f join layers l on l.id = f.layer_id, b
-      where l.project_id = ${projectId} and l.kind = 'cover' and l.status = 'ready'
-        and f.geom && b.g and ST_Intersects(f.geom, b.g)),
-    s as (
-      select f.hsg, ST_Intersection(f.geom, b.g) as g
-      from layer_features f join layers l on l.id = f.layer_id, b
-      where l.project_id = ${projectId} and l.kind = 'soil' and l.status = 'ready'
-        and f.geom && b.g and ST_Intersects(f.geom, b.g))
+/**
+ * Cover × soil pieces inside the boundary, area per (class, HSG); plus cover alone. Exported so
+ * a test can EXPLAIN it: only the project's own layers' features may be read.
+ */
+export function coverSoilAreaQuery(projectId: string, subcatchmentId: string): SQL {
+  const boundary = sql`(select boundary from subcatchments
+    where id = ${subcatchmentId}::uuid and project_id = ${projectId}::uuid)`;
+  return sql`
+    with f as (
+      select p.kind, p.surface_class_id, p.hsg, ST_Intersection(p.geom, b.g) as g
+      from ${projectFeaturesNear(projectId, ["cover", "soil"], boundary)} p,
+        (select ${boundary} as g) b
+      where ST_Intersects(p.geom, b.g)),
+    c as (select surface_class_id, g from f where kind = 'cover'),
+    s as (select hsg, g from f where kind = 'soil')
     select 'cover-soil' as kind, c.surface_class_id, s.hsg,
       sum(ST_Area(ST_Intersection(c.g, s.g)::geography)) as area_m2
     from c join s on ST_Intersects(c.g, s.g)
     group by 2, 3
     union all
-    select 'cover', c.surface_class_id, null, sum(ST_Area(c.g::geography)) from c group by 2`);
+    select 'cover', c.surface_class_id, null, sum(ST_Area(c.g::geography)) from c group by 2`;
+}
+
+async function coverSoilAreas(db: Db, projectId: string, subcatchmentId: string) {
+  const key = await areaKey(db, projectId, subcatchmentId);
+  const cached = AREA_CACHE.get(key);
+  if (cached) return cached;
+  const result = await db.execute<WeightRow>(coverSoilAreaQuery(projectId, subcatchmentId));
   const rows = result.rows.map((r): AreaRow => ({ ...r, area_m2: Number(r.area_m2) }));
   if (AREA_CACHE.size >= AREA_CACHE_SIZE) {
     const oldest = AREA_CACHE.keys().next().value;

@@ -1,9 +1,10 @@
 /**
  * Everything a compute needs, read in one go: the flow path and its version, breaks, surveyed
  * points, surface overrides, the subcatchment's fields, the project's rules, rainfall and catalog, and the layer
- * features near the path (a PostGIS bounding-box query on the GiST index, never the whole layer).
+ * features near the path (the project's layers first, then each one's features in the path's box
+ * through the (layer_id, geom) GiST index: never the whole layer, never another project's).
  */
-import { and, asc, desc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, sql, type SQL } from "drizzle-orm";
 import type { Geometry } from "geojson";
 import type {
   HsgCode,
@@ -15,6 +16,7 @@ import type {
 import { HSG_CODES } from "../../../shared/geo";
 import type { IdfInput } from "../../../shared/hydrology";
 import type { SurfaceValues } from "../../../shared/schemas/catalog";
+import type { LayerKind } from "../../../shared/schemas/layers";
 import type { DesignRules } from "../../../shared/schemas/design-rules";
 import type { SurfaceParams } from "../../../shared/sheet/rows";
 import type { ProjectRow } from "../../auth/guards";
@@ -30,6 +32,7 @@ import {
 } from "../../db/schema-geodata";
 import { projectClasses } from "../catalog-store";
 import { loadDesignRules } from "../design-rules-store";
+import { projectFeaturesNear } from "../project-features";
 
 export interface RainfallChoice {
   readonly id: string;
@@ -89,13 +92,16 @@ interface FeatureRow extends Record<string, unknown> {
   g: string;
 }
 
-async function featuresNear(db: Db, projectId: string, kind: string, pathBox: unknown) {
-  const result = await db.execute<FeatureRow>(sql`
-    select f.id, f.surface_class_id, f.hsg, ST_AsGeoJSON(f.geom, 15) as g
-    from layer_features f join layers l on l.id = f.layer_id
-    where l.project_id = ${projectId} and l.kind = ${kind} and l.status = 'ready'
-      and f.geom && ${pathBox}
-    order by f.id`);
+/** The project's features of one kind whose box meets `box` (exported for an EXPLAIN test). */
+export function featuresNearQuery(projectId: string, kind: LayerKind, box: SQL): SQL {
+  return sql`
+    select p.id, p.surface_class_id, p.hsg, ST_AsGeoJSON(p.geom, 15) as g
+    from ${projectFeaturesNear(projectId, [kind], box)} p
+    order by p.id`;
+}
+
+async function featuresNear(db: Db, projectId: string, kind: LayerKind, box: SQL) {
+  const result = await db.execute<FeatureRow>(featuresNearQuery(projectId, kind, box));
   return result.rows.map((r) => ({
     id: Number(r.id),
     surfaceClassId: r.surface_class_id,
@@ -165,7 +171,7 @@ export async function loadComputeData(
   for (const c of classRows) {
     classes.set(c.id, { id: c.id, key: c.key, name: c.name, values: c.values as SurfaceValues });
   }
-  // Features whose box meets the path's box (the GiST index answers it).
+  // Features whose box meets the path's box.
   const box = fp
     ? sql`(select ST_Envelope(geom) from flow_paths where subcatchment_id = ${subcatchmentId})`
     : sql`ST_GeomFromText('POLYGON EMPTY', 4326)`;
