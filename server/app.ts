@@ -6,6 +6,7 @@ import { sessionMiddleware } from "./auth/session";
 import type { AppConfig } from "./config";
 import type { Db } from "./db/client";
 import { clientRouter } from "./http/client";
+import { stopWorkWhenClientLeaves } from "./http/client-gone";
 import { MVT_TYPE } from "./tiles/respond";
 import { apiNotFound, errorHandler } from "./http/errors";
 import { requireJsonOrUpload } from "./http/multipart-routes";
@@ -73,6 +74,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     express.json({ limit: JSON_BODY_LIMIT, type: ["application/json", "application/*+json"] }),
   );
   api.use(sessionMiddleware(config, deps.sessionStore));
+  api.use(stopWorkWhenClientLeaves);
   // One line per resource; geodata routers join this list.
   const routers: ((deps: RouteDeps) => express.Router)[] = [
     configRouter,

@@ -48,6 +48,8 @@ const envSchema = z.object({
   DATABASE_URL: z
     .string({ message: "Set DATABASE_URL (npm start sets it for the local database)." })
     .regex(/^postgres(ql)?:\/\//, { message: "Use a postgres:// connection URL." }),
+  DATABASE_STATEMENT_TIMEOUT_SECONDS: z.coerce.number().min(0.1).max(3600).default(15),
+  DATABASE_JOB_STATEMENT_TIMEOUT_SECONDS: z.coerce.number().min(1).max(86_400).default(600),
   SESSION_SECRET: z.string().min(1).default(DEFAULT_SESSION_SECRET),
   PUBLIC_BASE_URL: optionalText.pipe(
     z.url({ protocol: /^https?$/, message: "Use an http:// or https:// URL." }).optional(),
@@ -101,6 +103,8 @@ export interface Config {
   /** How many app processes `npm start` runs (default: one per core). */
   webProcesses: number;
   databaseUrl: string;
+  /** The longest one SQL statement may run: for requests (then 503), and for background jobs. */
+  statementTimeoutMs: { request: number; job: number };
   sessionSecret: string;
   /** Undefined means "the address the server listens on" (resolved once it listens). */
   publicBaseUrl: string | undefined;
@@ -191,6 +195,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: e.HOST,
     webProcesses: e.WEB_CONCURRENCY ?? os.availableParallelism(),
     databaseUrl: e.DATABASE_URL,
+    statementTimeoutMs: {
+      request: Math.round(e.DATABASE_STATEMENT_TIMEOUT_SECONDS * 1000),
+      job: Math.round(e.DATABASE_JOB_STATEMENT_TIMEOUT_SECONDS * 1000),
+    },
     sessionSecret: e.SESSION_SECRET,
     publicBaseUrl: e.PUBLIC_BASE_URL?.replace(/\/+$/, ""),
     trustProxy: e.TRUST_PROXY,

@@ -1,5 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import type { ApiError } from "../../shared/schemas/common";
+import { statementStopped } from "../db/errors";
+import { RequestGoneError } from "../db/request-scope";
 
 /** An error with a status and code the client can act on; thrown anywhere in a handler. */
 export class HttpError extends Error {
@@ -53,6 +55,15 @@ function bodyParserError(err: unknown): HttpError | undefined {
   return typeof type === "string" ? BODY_ERRORS[type] : undefined;
 }
 
+/** PostgreSQL stopped a statement past the time limit (or an administrator cancelled it). */
+export const databaseTooSlow = () =>
+  new HttpError(
+    503,
+    "database_timeout",
+    "This request took longer than the server allows and was stopped. Try again in a moment; " +
+      "if it keeps happening, tell your administrator.",
+  );
+
 export const apiNotFound: RequestHandler = (req) => {
   throw new HttpError(404, "not_found", `There is no API route ${req.method} ${req.path}.`);
 };
@@ -61,6 +72,14 @@ export const apiNotFound: RequestHandler = (req) => {
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) => {
   if (res.headersSent) {
     next(err);
+    return;
+  }
+  const stopped = statementStopped(err);
+  // The client went away and its work was stopped: there is nobody to answer.
+  if (err instanceof RequestGoneError || (stopped === "cancelled" && req.socket.destroyed)) return;
+  if (stopped) {
+    console.warn(`Database statement stopped (${stopped}) on ${req.method} ${req.path}`);
+    res.status(503).set("Retry-After", "10").json(databaseTooSlow().toJSON());
     return;
   }
   const known = err instanceof HttpError ? err : bodyParserError(err);

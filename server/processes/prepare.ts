@@ -24,7 +24,10 @@ export function baseConfig(overrides: Partial<Config> = {}): Config {
 /** Migrations and the database-only seeds, once, before any app or worker process starts. */
 export async function prepareDatabase(config: Config): Promise<Database> {
   await runMigrations(config.databaseUrl);
-  const database = connectDatabase(config.databaseUrl, 2);
+  // Seeding is start-up work, not a request: the job limit.
+  const database = connectDatabase(config.databaseUrl, 2, {
+    statementTimeoutMs: config.statementTimeoutMs.job,
+  });
   try {
     await seedDemo(database.db);
     await seedBasemap(database.db);

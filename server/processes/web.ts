@@ -46,7 +46,9 @@ function listen(server: http.Server, port: number, host: string): Promise<number
 }
 
 export async function startWeb(base: Config): Promise<RunningWeb> {
-  const database = connectDatabase(base.databaseUrl, WEB_POOL_SIZE);
+  const database = connectDatabase(base.databaseUrl, WEB_POOL_SIZE, {
+    statementTimeoutMs: base.statementTimeoutMs.request,
+  });
   const { pool, db } = database;
   const cleanups = cleanupStack();
   cleanups.push(() => pool.end());

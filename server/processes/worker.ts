@@ -16,7 +16,10 @@ export interface RunningWorker {
 }
 
 export async function startWorker(config: Config): Promise<RunningWorker> {
-  const { pool, db } = connectDatabase(config.databaseUrl, 4);
+  // Jobs write large batches: the longer statement limit (DATABASE_JOB_STATEMENT_TIMEOUT_SECONDS).
+  const { pool, db } = connectDatabase(config.databaseUrl, 4, {
+    statementTimeoutMs: config.statementTimeoutMs.job,
+  });
   const cleanups = cleanupStack();
   cleanups.push(() => pool.end());
   try {

@@ -87,7 +87,13 @@ export async function startTestApp(
 ): Promise<TestApp> {
   const tempDir = mkdtempSync(path.join(os.tmpdir(), "rillmark-test-"));
   const config = testConfig(overrides, tempDir);
-  const { pool, db } = connectDatabase(config.databaseUrl, 5);
+  const { pool, db } = connectDatabase(config.databaseUrl, 5, {
+    statementTimeoutMs: config.statementTimeoutMs.request,
+  });
+  // As in production: jobs on a pool of their own, with the longer statement limit.
+  const jobDatabase = connectDatabase(config.databaseUrl, 2, {
+    statementTimeoutMs: config.statementTimeoutMs.job,
+  });
   const smtpCredentials = newStandInCredentials().smtp;
   const smtp = await startFakeSmtp(db, smtpCredentials, 0);
   const storage = await startStorage(config.storage);
@@ -102,7 +108,13 @@ export async function startTestApp(
   const workers =
     options.workers === false
       ? { stop: () => Promise.resolve() }
-      : await startWorkers({ db, store: storage.store, jobs, config, sweep: false });
+      : await startWorkers({
+          db: jobDatabase.db,
+          store: storage.store,
+          jobs,
+          config,
+          sweep: false,
+        });
   const mailer = createMailer(
     {
       host: "127.0.0.1",
@@ -134,6 +146,7 @@ export async function startTestApp(
       await jobs.close();
       await storage.close();
       if (!pool.ending) await pool.end();
+      await jobDatabase.pool.end();
       rmSync(tempDir, { recursive: true, force: true });
     },
   };
