@@ -3,7 +3,7 @@
  * (GeoJSON ↔ PostGIS in EPSG:4326). Stations and elevations are stored in metres and answered
  * in the project's length unit.
  */
-import { asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { pathLengthsM, type LonLat } from "../../shared/geo";
 import { ftFromM, mFromFt } from "../../shared/hydrology/units";
 import type { Subcatchment } from "../../shared/schemas/subcatchments";
@@ -16,7 +16,7 @@ import {
   subcatchments,
   surfaceOverrides,
 } from "../db/schema-geodata";
-import { invalidInput } from "../http/errors";
+import { HttpError, invalidInput } from "../http/errors";
 
 export type Units = "us" | "si";
 export type FlowLine = NonNullable<Subcatchment["flowPath"]>["geometry"];
@@ -43,6 +43,43 @@ export async function checkBoundary(db: DbOrTx, boundary: object, field = "bound
       "The boundary is not a valid polygon.",
     );
   }
+}
+
+export const staleSubcatchment = (version: number) =>
+  new HttpError(
+    409,
+    "stale_version",
+    `This subcatchment was changed by someone else (version ${version}); reload it and apply your edit again.`,
+  );
+
+/**
+ * Writes the subcatchment's own fields (name, scenario, boundary, outlet, channel, note) only
+ * if it is still at the version the caller read, and takes the next version: one conditional
+ * UPDATE, so of several edits made from one version exactly one lands and the others get 409
+ * (PostgreSQL re-checks the WHERE on the row a concurrent writer left). An empty change only
+ * checks the version.
+ */
+export async function writeSubcatchmentFields(
+  db: DbOrTx,
+  id: string,
+  sentVersion: number,
+  set: Record<string, unknown>,
+): Promise<number> {
+  const same = and(eq(subcatchments.id, id), eq(subcatchments.version, sentVersion));
+  const [row] =
+    Object.keys(set).length === 0
+      ? await db.select({ version: subcatchments.version }).from(subcatchments).where(same)
+      : await db
+          .update(subcatchments)
+          .set({ ...set, version: sql`${subcatchments.version} + 1` })
+          .where(same)
+          .returning({ version: subcatchments.version });
+  if (row) return row.version;
+  const [current] = await db
+    .select({ version: subcatchments.version })
+    .from(subcatchments)
+    .where(eq(subcatchments.id, id));
+  throw staleSubcatchment(current?.version ?? 0);
 }
 
 export async function loadSubcatchment(
@@ -97,6 +134,7 @@ export async function loadSubcatchment(
     outlet: row.outlet ? JSON.parse(row.outlet) : null,
     channel: (s.channel as Subcatchment["channel"]) ?? null,
     note: s.note,
+    version: s.version,
     flowPath:
       path && line
         ? {

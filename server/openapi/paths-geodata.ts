@@ -214,7 +214,7 @@ export function registerGeodataPaths(d: ApiDocs): void {
     summary: "Set the boundary from a file holding exactly one polygon",
     tag: "Subcatchments",
     permission: "geometry:edit",
-    form: z.object({}),
+    form: z.object({ version: z.string() }),
     response: sub,
   });
   d.route("put", "/subcatchments/:id/breaks", {

@@ -1,21 +1,24 @@
 /**
  * A flow path or a boundary from a file (KML/KMZ, GPX, GeoJSON, zipped shapefile) through the
  * same readers as layer uploads: the file must hold exactly one line (or one polygon), else 422
- * saying how many it holds. The path goes in under the version sent (form field "version").
+ * saying how many it holds. Each goes in under the version sent (form field "version"): the
+ * path's for a path, the subcatchment's for a boundary.
  */
-import { eq } from "drizzle-orm";
 import type { Feature, Geometry } from "geojson";
 import { Router, type RequestHandler } from "express";
 import { z } from "zod";
 import { boundarySchema, lineStringSchema } from "../../shared/schemas/subcatchments";
 import { currentUser, requirePermission, requireUser } from "../auth/guards";
 import type { Db } from "../db/client";
-import { subcatchments } from "../db/schema-geodata";
 import { loadViaProject, paramId } from "../geodata/access";
 import { writeFlowPath } from "../geodata/flow-path-store";
 import { detectFormat, readVectorFile } from "../geodata/readers";
 import { VECTOR_FORMATS, type VectorFormat } from "../geodata/readers/types";
-import { checkBoundary, geomFromJson } from "../geodata/subcatchment-store";
+import {
+  checkBoundary,
+  geomFromJson,
+  writeSubcatchmentFields,
+} from "../geodata/subcatchment-store";
 import { withUploadedFile } from "../geodata/upload-file";
 import { HttpError } from "../http/errors";
 import { validate } from "../http/validate";
@@ -88,20 +91,26 @@ function pathHandler(db: Db): RequestHandler {
   };
 }
 
+/** The boundary is one of the subcatchment's own fields: it goes in under that version. */
+const subcatchmentVersionField = z.strictObject({
+  version: z.coerce
+    .number({ error: "send the subcatchment's version you read" })
+    .int()
+    .min(1, "must be the subcatchment's version you read"),
+});
+
 function boundaryHandler(db: Db): RequestHandler {
   return async (req, res) => {
     const id = paramId(req);
     await withUploadedFile(req, async (file) => {
+      const { version } = validate(subcatchmentVersionField, req.body);
       const feature = await readOne(file, isArea, "polygon (the boundary)");
       const boundary = validate(boundarySchema, {
         type: feature.geometry.type,
         coordinates: (feature.geometry as { coordinates: unknown }).coordinates,
       });
       await checkBoundary(db, boundary);
-      await db
-        .update(subcatchments)
-        .set({ boundary: geomFromJson(boundary) as unknown as string })
-        .where(eq(subcatchments.id, id));
+      await writeSubcatchmentFields(db, id, version, { boundary: geomFromJson(boundary) });
     });
     res.json(await answerSubcatchment(db, req));
   };

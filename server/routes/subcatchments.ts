@@ -1,9 +1,10 @@
 /**
- * Subcatchments of a project: boundary, outlet, channel fields, the longest flow path under a
- * version (409 on a stale one), regime breaks, surveyed elevations and surface overrides.
+ * Subcatchments of a project: boundary, outlet, channel fields under the subcatchment's version,
+ * the longest flow path with its regime breaks, surveyed elevations and surface overrides under
+ * the path's version (409 on a stale one of either: no edit silently replaces another).
  * Stations and elevations in bodies are in the project's length unit; they are stored in metres.
  */
-import { and, asc, eq, sql } from "drizzle-orm";
+import { asc, eq, sql } from "drizzle-orm";
 import { Router, type Request } from "express";
 import {
   createSubcatchmentBody,
@@ -38,6 +39,7 @@ import {
   geomFromJson,
   loadSubcatchment,
   toMetres,
+  writeSubcatchmentFields,
   type Units,
 } from "../geodata/subcatchment-store";
 import { invalidInput, notFound } from "../http/errors";
@@ -126,19 +128,13 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
   router.patch("/subcatchments/:id", ...edit, async (req, res) => {
     const body = validate(updateSubcatchmentBody, req.body);
     if (body.boundary) await checkBoundary(db, body.boundary);
-    const { boundary, outlet, ...plain } = body;
+    const { boundary, outlet, version, ...plain } = body;
     const set: Record<string, unknown> = { ...plain };
     if (boundary !== undefined) set.boundary = boundary ? geomFromJson(boundary) : null;
     if (outlet !== undefined) set.outlet = outlet ? geomFromJson(outlet) : null;
-    if (Object.keys(set).length > 0) {
-      await db
-        .update(subcatchments)
-        .set(set)
-        .where(eq(subcatchments.id, paramId(req)))
-        .catch((err: unknown) => {
-          throw isUniqueViolation(err) ? nameTaken() : err;
-        });
-    }
+    await writeSubcatchmentFields(db, paramId(req), version, set).catch((err: unknown) => {
+      throw isUniqueViolation(err) ? nameTaken() : err;
+    });
     res.json(await answerSubcatchment(db, req));
   });
 
@@ -229,7 +225,11 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
     const id = paramId(req);
     const units = unitsOf(req);
     await db.transaction(async (tx) => {
-      await tx.delete(elevationOverrides).where(and(eq(elevationOverrides.subcatchmentId, id)));
+      const version = await nextPathVersion(tx, id, body.version);
+      if (version === 1) {
+        throw invalidInput({ version: "Draw the flow path before its surveyed elevations." });
+      }
+      await tx.delete(elevationOverrides).where(eq(elevationOverrides.subcatchmentId, id));
       if (body.entries.length > 0) {
         await tx.insert(elevationOverrides).values(
           body.entries.map((e) => ({
@@ -240,6 +240,7 @@ export function subcatchmentsRouter({ db }: RouteDeps): Router {
           })),
         );
       }
+      await touchFlowPath(tx, id, version, currentUser(req).id);
     });
     res.json(await answerSubcatchment(db, req));
   });

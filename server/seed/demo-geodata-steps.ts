@@ -163,7 +163,9 @@ export async function createSubcatchment(
     },
   );
   const file = path.join(dir, demo.file);
-  await engineer.upload(`/subcatchments/${created.id}/boundary/file`, file, {});
+  await engineer.upload(`/subcatchments/${created.id}/boundary/file`, file, {
+    version: String(created.version),
+  });
   const done = await engineer.upload<Subcatchment>(
     `/subcatchments/${created.id}/flow-path/file`,
     file,

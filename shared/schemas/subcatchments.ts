@@ -77,6 +77,12 @@ export const createSubcatchmentBody = z.strictObject({
 });
 export type CreateSubcatchmentBody = z.input<typeof createSubcatchmentBody>;
 
+/** The subcatchment's own version read by the client (its fields; the path has its own). */
+export const subcatchmentVersion = z
+  .number({ error: "send the subcatchment's version you read" })
+  .int()
+  .min(1, "must be at least 1");
+
 export const updateSubcatchmentBody = z.strictObject({
   name: name.optional(),
   scenario: scenario.optional(),
@@ -84,6 +90,7 @@ export const updateSubcatchmentBody = z.strictObject({
   outlet: pointSchema.nullable().optional(),
   channel: channelSchema.nullable().optional(),
   note: z.string().trim().max(2000).optional(),
+  version: subcatchmentVersion,
 });
 
 const version = z
@@ -120,6 +127,8 @@ export const putElevationsBody = z.strictObject({
       (e) => new Set(e.map((x) => x.station)).size === e.length,
       "two entries share a station",
     ),
+  /** The path's version: surveyed points are stations along it, like the breaks. */
+  version,
 });
 
 /** A stretch of the path said to be of one surface class (stations in the project's unit). */
@@ -182,6 +191,8 @@ export const subcatchmentSchema = z.object({
   outlet: pointSchema.nullable(),
   channel: channelSchema.nullable(),
   note: z.string(),
+  /** Version of the fields above; an edit sends the one it read (409 when someone changed it). */
+  version: z.number().int(),
   flowPath: flowPathSchema.nullable(),
   breaks: z.object({ sheetEnd: z.number().nullable(), channelStart: z.number().nullable() }),
   elevations: z.array(z.object({ station: z.number(), elevation: z.number(), note: z.string() })),

@@ -211,9 +211,10 @@ describe("compute", () => {
 
   it("lets a surveyed elevation override the terrain at its station", async () => {
     const other = await buildGeodataCase(t, "compute-survey");
-    await other.engineer
-      .put(`/api/subcatchments/${other.subcatchmentId}/elevations`)
-      .send({ entries: [{ station: 0, elevation: 190.25, note: "rod shot at the divide" }] });
+    await other.engineer.put(`/api/subcatchments/${other.subcatchmentId}/elevations`).send({
+      entries: [{ station: 0, elevation: 190.25, note: "rod shot at the divide" }],
+      version: 2,
+    });
     const res = await other.engineer
       .post(`/api/subcatchments/${other.subcatchmentId}/compute`)
       .send({});

@@ -84,7 +84,9 @@ describe("database time limits", () => {
     const { id, agent } = await newSubcatchment(quick);
     const lock = await holdRow(quick, id);
     try {
-      const res = await agent.patch(`/api/subcatchments/${id}`).send({ note: "changed" });
+      const res = await agent
+        .patch(`/api/subcatchments/${id}`)
+        .send({ note: "changed", version: 1 });
       expect(res.status).toBe(503);
       expect(res.body.error.code).toBe("database_timeout");
       expect(res.body.error.message).toMatch(/took longer than the server allows/);
@@ -113,7 +115,7 @@ describe("database time limits", () => {
           origin: patient.config.publicBaseUrl,
           "content-type": "application/json",
         },
-        body: JSON.stringify({ note: "changed" }),
+        body: JSON.stringify({ note: "changed", version: 1 }),
         signal: gone.signal,
       }).catch((err: unknown) => err);
       const [blocked] = await until(

@@ -69,8 +69,8 @@ describe("subcatchments", () => {
     expect(list.body.map((s: { id: string }) => s.id)).toContain(made.id);
     const patched = await engineer
       .patch(`/api/subcatchments/${made.id}`)
-      .send({ scenario: "proposed", note: "after grading" });
-    expect(patched.body).toMatchObject({ scenario: "proposed", note: "after grading" });
+      .send({ scenario: "proposed", note: "after grading", version: 1 });
+    expect(patched.body).toMatchObject({ scenario: "proposed", note: "after grading", version: 2 });
     expect((await engineer.delete(`/api/subcatchments/${made.id}`)).status).toBe(204);
     expect((await engineer.get(`/api/subcatchments/${made.id}`)).status).toBe(404);
   });
@@ -160,16 +160,16 @@ describe("subcatchments", () => {
     const total = put.body.flowPath.lengthM as number;
     await engineer
       .put(`/api/subcatchments/${made.id}/elevations`)
-      .send({ entries: [{ station: 10, elevation: 400.5, note: "rod shot" }] });
+      .send({ entries: [{ station: 10, elevation: 400.5, note: "rod shot" }], version: 1 });
     const rev = await engineer
       .post(`/api/subcatchments/${made.id}/flow-path/reverse`)
-      .send({ version: 1 });
+      .send({ version: 2 });
     expect(rev.status, JSON.stringify(rev.body)).toBe(200);
-    expect(rev.body.flowPath.version).toBe(2);
+    expect(rev.body.flowPath.version).toBe(3);
     expect(rev.body.flowPath.geometry.coordinates).toEqual([...PATH.coordinates].reverse());
     expect(rev.body.elevations[0].station).toBeCloseTo(total - 10, 3);
     expect(
-      (await engineer.post(`/api/subcatchments/${made.id}/flow-path/reverse`).send({ version: 1 }))
+      (await engineer.post(`/api/subcatchments/${made.id}/flow-path/reverse`).send({ version: 2 }))
         .status,
     ).toBe(409);
   });
@@ -202,11 +202,15 @@ describe("subcatchments", () => {
 
   it("replaces surveyed elevations all at once and refuses two at one station", async () => {
     const made = await make();
+    await engineer
+      .put(`/api/subcatchments/${made.id}/flow-path`)
+      .send({ geometry: PATH, version: 0 });
     const ok = await engineer.put(`/api/subcatchments/${made.id}/elevations`).send({
       entries: [
         { station: 0, elevation: 412.3 },
         { station: 50, elevation: 405.1, note: "culvert invert" },
       ],
+      version: 1,
     });
     expect(ok.body.elevations).toHaveLength(2);
     const dup = await engineer.put(`/api/subcatchments/${made.id}/elevations`).send({
@@ -214,6 +218,7 @@ describe("subcatchments", () => {
         { station: 5, elevation: 1 },
         { station: 5, elevation: 2 },
       ],
+      version: 2,
     });
     expect(dup.status).toBe(422);
     const after = await engineer.get(`/api/subcatchments/${made.id}`);
@@ -245,6 +250,7 @@ describe("subcatchment geometry from files", () => {
     const made = await make();
     const res = await engineer
       .post(`/api/subcatchments/${made.id}/boundary/file`)
+      .field("version", "1")
       .attach("file", fixture("soils.geojson"));
     expect(res.status).toBe(422);
     expect(res.body.error.message).toBe(

@@ -359,7 +359,7 @@ export const GEODATA_ROUTE_CASES: RouteCase[] = [
     method: "patch",
     route: "/api/subcatchments/:id",
     teamScoped: true,
-    prepare: async (f) => ({ ...(await sub()(f)), body: { note: "checked" } }),
+    prepare: async (f) => ({ ...(await sub()(f)), body: { note: "checked", version: 1 } }),
     expected: engineerEdit(200),
   },
   {
@@ -405,7 +405,7 @@ export const GEODATA_ROUTE_CASES: RouteCase[] = [
     teamScoped: true,
     prepare: async (f) => ({
       ...(await sub("/boundary/file")(f)),
-      upload: { fields: {}, file: boundaryFile() },
+      upload: { fields: { version: "1" }, file: boundaryFile() },
     }),
     expected: engineerEdit(200),
   },
@@ -424,8 +424,8 @@ export const GEODATA_ROUTE_CASES: RouteCase[] = [
     route: "/api/subcatchments/:id/elevations",
     teamScoped: true,
     prepare: async (f) => ({
-      ...(await sub("/elevations")(f)),
-      body: { entries: [{ station: 0, elevation: 10 }] },
+      path: `/api/subcatchments/${await freshSub(f, true)}/elevations`,
+      body: { entries: [{ station: 0, elevation: 10 }], version: 1 },
     }),
     expected: engineerEdit(200),
   },

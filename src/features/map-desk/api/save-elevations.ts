@@ -15,17 +15,21 @@ export interface SurveyEntry {
   note: string;
 }
 
+export interface SaveElevationsInput {
+  entries: readonly SurveyEntry[];
+  /** The flow path's version read: surveyed points are stations along it (409 when stale). */
+  version: number;
+}
+
 /** Replaces the whole list of surveyed points (the API keeps one list per subcatchment). */
-export function saveElevations(id: string, entries: readonly SurveyEntry[]): Promise<Subcatchment> {
-  return apiSend("PUT", apiPath`/api/subcatchments/${id}/elevations`, subcatchmentSchema, {
-    entries,
-  });
+export function saveElevations(id: string, input: SaveElevationsInput): Promise<Subcatchment> {
+  return apiSend("PUT", apiPath`/api/subcatchments/${id}/elevations`, subcatchmentSchema, input);
 }
 
 export const saveElevationsMutationOptions = (queryClient: QueryClient, id: string) =>
   mutationOptions({
     mutationKey: [...queryKeys.subcatchment(id), "elevations"],
-    mutationFn: (entries: readonly SurveyEntry[]) => saveElevations(id, entries),
+    mutationFn: (input: SaveElevationsInput) => saveElevations(id, input),
     onSuccess: (saved) => {
       queryClient.setQueryData(queryKeys.subcatchment(id), saved);
     },

@@ -12,7 +12,7 @@ import { uploadForm } from "../../../lib/upload";
 export interface GeometryFileInput {
   what: "flow-path" | "boundary";
   file: File;
-  /** The path version the upload replaces (flow paths only). */
+  /** The version the upload replaces: the path's for a path, the subcatchment's for a boundary. */
   version: number;
 }
 
@@ -23,7 +23,7 @@ export async function uploadGeometryFile(
 ): Promise<Subcatchment> {
   const form = new FormData();
   // Text fields before the file: the server reads them first.
-  if (input.what === "flow-path") form.append("version", String(input.version));
+  form.append("version", String(input.version));
   form.append("file", input.file);
   const path =
     input.what === "flow-path"

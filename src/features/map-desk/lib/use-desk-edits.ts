@@ -3,10 +3,12 @@
  * reversing, boundary, outlet, files), each followed by a fresh compute so the sheet never shows
  * numbers for geometry that is no longer there.
  */
+import { useQueryClient } from "@tanstack/react-query";
 import { useCallback, useState } from "react";
 import { ftFromM } from "../../../../shared/hydrology/units";
 import type { Subcatchment } from "../../../../shared/schemas/subcatchments";
 import { isApiError } from "../../../lib/api";
+import { queryKeys } from "../../../lib/query-keys";
 import { useSaveBreaks } from "../api/save-breaks";
 import { useSaveElevations, type SurveyEntry } from "../api/save-elevations";
 import { useSaveSurfaceOverrides } from "../api/save-surface-overrides";
@@ -33,6 +35,9 @@ export function useDeskEdits(
   const update = useUpdateSubcatchment(id, projectId);
   const upload = useUploadGeometryFile(id);
   const [error, setError] = useState<string | null>(null);
+  const queryClient = useQueryClient();
+  // Two versions: the path's (path, breaks, surveyed points, surfaces) and the subcatchment's
+  // own (boundary, outlet and the other fields).
   const version = subcatchment.flowPath?.version ?? 0;
 
   // True once the change is saved (the compute after it may still fail, as it says itself).
@@ -43,6 +48,10 @@ export function useDeskEdits(
         await action();
       } catch (e) {
         setError(isApiError(e) ? e.message : "The change could not be saved.");
+        // Someone else saved first: fetch their version, so the next try starts from it.
+        if (isApiError(e, 409)) {
+          await queryClient.invalidateQueries({ queryKey: queryKeys.subcatchment(id) });
+        }
         return false;
       }
       try {
@@ -52,7 +61,7 @@ export function useDeskEdits(
       }
       return true;
     },
-    [recompute],
+    [recompute, queryClient, id],
   );
 
   const moveBreaks = (change: BreakChange) => run(() => breaks.mutateAsync({ ...change, version }));
@@ -62,15 +71,21 @@ export function useDeskEdits(
       .filter((e) => Math.abs(e.station - station) > SAME_STATION)
       .map((e) => ({ station: e.station, elevation: e.elevation, note: e.note }));
     return run(() =>
-      elevations.mutateAsync([...kept, { station, elevation, note: "Entered on the Map desk" }]),
+      elevations.mutateAsync({
+        entries: [...kept, { station, elevation, note: "Entered on the Map desk" }],
+        version,
+      }),
     );
   };
 
   const clearElevation = (station: number) =>
     run(() =>
-      elevations.mutateAsync(
-        subcatchment.elevations.filter((e) => Math.abs(e.station - station) > SAME_STATION),
-      ),
+      elevations.mutateAsync({
+        entries: subcatchment.elevations.filter(
+          (e) => Math.abs(e.station - station) > SAME_STATION,
+        ),
+        version,
+      }),
     );
 
   const lengthM = subcatchment.flowPath?.lengthM ?? 0;
@@ -102,10 +117,16 @@ export function useDeskEdits(
     });
 
   /** A new boundary or outlet (drawn, or put back by undo or redo). */
-  const setOutline = (patch: OutlineChange) => run(() => update.mutateAsync(patch));
+  const setOutline = (patch: OutlineChange) =>
+    run(() => update.mutateAsync({ ...patch, version: subcatchment.version }));
 
   const loadFile = (input: Omit<GeometryFileInput, "version">) =>
-    run(() => upload.mutateAsync({ ...input, version }));
+    run(() =>
+      upload.mutateAsync({
+        ...input,
+        version: input.what === "boundary" ? subcatchment.version : version,
+      }),
+    );
 
   const busy =
     breaks.isPending ||
