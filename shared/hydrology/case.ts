@@ -7,11 +7,15 @@ import type { IdfInput } from "./idf-schema";
 import type { IdfData, ShermanCoefficients } from "./idf";
 import type { ComputeInput, SectionInput, SegmentInput } from "./input-schema";
 import type { ChannelSection } from "./manning";
+import { applySheetCap, type CapSplit } from "./sheet-cap";
 import { resolveRules, type ResolvedRules } from "./rules";
 import { acFromHa, ft2FromM2, ftFromM, inFromMm, type UnitSystem } from "./units";
 
 interface SegmentBase {
+  /** The input segment this computes (a sheet segment cut at the cap gives two parts). */
   readonly index: number;
+  /** Set on the part of a sheet segment that lies past the sheet-flow cap (now shallow). */
+  readonly pastCap?: true;
   readonly lengthFt: number;
   readonly slopeFtPerFt: number;
   readonly cn: number | undefined;
@@ -23,6 +27,7 @@ export type InternalSegment = SegmentBase &
         readonly regime: "sheet";
         readonly sheetN: number;
         readonly kFtPerS: number | undefined;
+        readonly shallowKFtPerS: number | undefined;
         readonly kerbyN: number | undefined;
       }
     | { readonly regime: "shallow"; readonly kFtPerS: number }
@@ -41,7 +46,10 @@ export interface InternalCase {
     readonly cn: number | undefined;
     readonly c: number | undefined;
   };
+  /** The computed segments: the input's, with sheet flow past the cap carried as the rule says. */
   readonly segments: readonly InternalSegment[];
+  /** Where sheet flow past the cap became shallow flow (rules.sheetFlowPastCap = "shallow"). */
+  readonly capSplits: readonly CapSplit[];
 }
 
 const lengthIn = (units: UnitSystem) => (value: number) =>
@@ -90,6 +98,7 @@ function segmentFt(segment: SegmentInput, index: number, units: UnitSystem): Int
         regime: "sheet",
         sheetN: segment.n,
         kFtPerS: segment.k === undefined ? undefined : ft(segment.k),
+        shallowKFtPerS: segment.shallowK === undefined ? undefined : ft(segment.shallowK),
         kerbyN: segment.kerbyN,
       };
     case "shallow":
@@ -134,10 +143,16 @@ export function idfDataFromInput(idf: IdfInput, units: UnitSystem): IdfData {
 export function toInternalCase(input: ComputeInput): InternalCase {
   const { units } = input;
   const w = input.watershed ?? {};
+  const rules = resolveRules(input.rules, units, input.returnPeriodYears);
+  const capped = applySheetCap(
+    input.segments.map((segment, index) => segmentFt(segment, index, units)),
+    rules,
+    units,
+  );
   return {
     units,
     returnPeriodYears: input.returnPeriodYears,
-    rules: resolveRules(input.rules, units, input.returnPeriodYears),
+    rules,
     p2In:
       input.rainfall.p2_24h === undefined
         ? undefined
@@ -151,6 +166,7 @@ export function toInternalCase(input: ComputeInput): InternalCase {
       cn: w.cn,
       c: w.c,
     },
-    segments: input.segments.map((segment, index) => segmentFt(segment, index, units)),
+    segments: capped.segments,
+    capSplits: capped.splits,
   };
 }

@@ -1,11 +1,15 @@
 /**
- * The labelled checks: Kirpich over the whole path; Kerby and FAA over the overland (sheet)
- * segments, whose times they estimate. Equations, sources and ranges are in kirpich.ts,
- * kerby.ts and faa.ts.
+ * The labelled checks: Kirpich over the whole path (with its adjustment factor when the design
+ * rules ask for one); Kerby and FAA over the overland (sheet) segments, whose times they estimate;
+ * Kerby–Kirpich over both parts. The minimum Tc belongs to a whole path, so it is not applied to
+ * the overland-only checks, and they say so. Equations, sources and ranges are in kirpich.ts,
+ * kerby.ts, faa.ts and kerby-kirpich.ts.
  */
+import type { InternalSegment } from "./case";
 import { faaTcMin, FAA_MAX_LENGTH_FT } from "./faa";
 import { kerbyTcMin, KERBY_MAX_LENGTH_FT } from "./kerby";
-import { kirpichTcMin, KIRPICH_RANGE } from "./kirpich";
+import { KERBY_KIRPICH_RANGE, KERBY_KIRPICH_SOURCE } from "./kerby-kirpich";
+import { KIRPICH_ADJUSTMENT_SOURCE, KIRPICH_FACTORS, kirpichTcMin, KIRPICH_RANGE } from "./kirpich";
 import {
   averageSlope,
   sheetSegments,
@@ -16,6 +20,7 @@ import {
 } from "./method-context";
 import { METHOD_LABELS, type CheckMethodId } from "./method-ids";
 import type { CheckResult, Outcome } from "./result-types";
+import { hrFromMin } from "./units";
 
 const SOURCES: Readonly<Record<CheckMethodId, string>> = {
   kirpich:
@@ -23,7 +28,10 @@ const SOURCES: Readonly<Record<CheckMethodId, string>> = {
   kerby:
     "Kerby (1959), tc = 0.828·(L·N)^0.467·S^−0.235 (as printed in a state DOT drainage manual)",
   faa: "FAA (1970), tc = 1.8·(1.1 − C)·L^0.5/S^(1/3), S in percent (urban drainage criteria manual)",
+  "kerby-kirpich": KERBY_KIRPICH_SOURCE,
 };
+
+const OVERLAND_NOTE = "overland part only: the minimum Tc (a whole-path rule) is not applied";
 
 function check(
   ctx: MethodContext,
@@ -33,17 +41,28 @@ function check(
   inputs: Record<string, number>,
   range: string,
   outside: string[],
+  source = SOURCES[id],
 ): CheckResult {
+  const whole = totals(tcMin, ctx.kase.rules.minTcMin, id);
+  const shown =
+    scope === "overland"
+      ? {
+          computedMin: whole.computedMin,
+          totalMin: whole.computedMin,
+          totalHr: hrFromMin(whole.computedMin),
+          minimumApplied: false,
+        }
+      : whole;
   return {
     id,
     label: METHOD_LABELS[id],
     kind: "check",
-    source: SOURCES[id],
+    source,
     status: "ok",
     scope,
-    ...totals(tcMin, ctx.kase.rules.minTcMin, id),
+    ...shown,
     segments: [],
-    validity: { range, outside },
+    validity: { range: scope === "overland" ? `${range}; ${OVERLAND_NOTE}` : range, outside },
     inputs,
   };
 }
@@ -65,14 +84,21 @@ export function kirpichCheck(ctx: MethodContext): Outcome<CheckResult> {
   // The check is still reported, but a reader of the warnings list must see it is out of range.
   for (const message of outside)
     ctx.warnings.add({ code: "kirpich-range", method: "kirpich", message });
+  const adjustment = kase.rules.kirpichAdjustment;
+  const factor = KIRPICH_FACTORS[adjustment];
+  const source =
+    adjustment === "none"
+      ? SOURCES.kirpich
+      : `${SOURCES.kirpich}; × ${factor} for ${adjustment === "paved-overland" ? "overland flow on concrete or asphalt" : "concrete channels"}, ${KIRPICH_ADJUSTMENT_SOURCE}`;
   return check(
     ctx,
     "kirpich",
     "whole-path",
-    kirpichTcMin(lengthFt, slope),
-    { length: out.length(lengthFt), slope },
+    factor * kirpichTcMin(lengthFt, slope),
+    { length: out.length(lengthFt), slope, factor },
     KIRPICH_RANGE.text,
     outside,
+    source,
   );
 }
 
@@ -84,39 +110,86 @@ function overland(ctx: MethodContext, id: CheckMethodId) {
   return sheets;
 }
 
-export function kerbyCheck(ctx: MethodContext): Outcome<CheckResult> {
-  const sheets = overland(ctx, "kerby");
+/** Kerby's time over the sheet segments (total length, length-weighted N, fall / length). */
+function kerbyPart(ctx: MethodContext, id: CheckMethodId) {
+  const sheets = overland(ctx, id);
   if (!Array.isArray(sheets)) return sheets;
   const missing = sheets
     .filter((s) => s.kerbyN === undefined)
     .map((s) => `segments[${s.index}].kerbyN`);
   if (missing.length > 0) {
-    return unavailable(
-      "kerby",
-      SOURCES.kerby,
-      "every sheet segment needs Kerby's retardance N",
-      missing,
-    );
+    return unavailable(id, SOURCES[id], "every sheet segment needs Kerby's retardance N", missing);
   }
-  const { out } = ctx;
   const lengthFt = totalLengthFt(sheets);
   const retardanceN = sheets.reduce((s, seg) => s + (seg.kerbyN ?? 0) * seg.lengthFt, 0) / lengthFt;
   const slope = averageSlope(sheets);
-  const outside: string[] = [];
-  if (lengthFt > KERBY_MAX_LENGTH_FT) {
-    const message =
-      `overland length ${out.length(lengthFt).toPrecision(4)} ${out.labels.length} is past ` +
-      `Kerby's ${out.length(KERBY_MAX_LENGTH_FT).toPrecision(4)} ${out.labels.length}`;
-    outside.push(message);
-    ctx.warnings.add({ code: "kerby-length", method: "kerby", message });
-  }
+  return { lengthFt, retardanceN, slope, tcMin: kerbyTcMin(lengthFt, retardanceN, slope) };
+}
+
+function kerbyLengthNote(ctx: MethodContext, lengthFt: number, id: CheckMethodId): string[] {
+  if (lengthFt <= KERBY_MAX_LENGTH_FT) return [];
+  const { out } = ctx;
+  const message =
+    `overland length ${out.length(lengthFt).toPrecision(4)} ${out.labels.length} is past ` +
+    `Kerby's ${out.length(KERBY_MAX_LENGTH_FT).toPrecision(4)} ${out.labels.length}`;
+  ctx.warnings.add({ code: "kerby-length", method: id, message });
+  return [message];
+}
+
+export function kerbyCheck(ctx: MethodContext): Outcome<CheckResult> {
+  const part = kerbyPart(ctx, "kerby");
+  if ("status" in part) return part;
+  const { out } = ctx;
   return check(
     ctx,
     "kerby",
     "overland",
-    kerbyTcMin(lengthFt, retardanceN, slope),
-    { length: out.length(lengthFt), retardanceN, slope },
+    part.tcMin,
+    { length: out.length(part.lengthFt), retardanceN: part.retardanceN, slope: part.slope },
     "overland flow up to 1,200 ft (365.76 m)",
+    kerbyLengthNote(ctx, part.lengthFt, "kerby"),
+  );
+}
+
+export function kerbyKirpichCheck(ctx: MethodContext): Outcome<CheckResult> {
+  const part = kerbyPart(ctx, "kerby-kirpich");
+  if ("status" in part) return part;
+  const { kase, out } = ctx;
+  const channel: InternalSegment[] = kase.segments.filter((s) => s.regime !== "sheet");
+  const channelFt = totalLengthFt(channel);
+  const channelSlope = channel.length > 0 ? averageSlope(channel) : 0;
+  const channelMin = channel.length > 0 ? kirpichTcMin(channelFt, channelSlope) : 0;
+  const outside = kerbyLengthNote(ctx, part.lengthFt, "kerby-kirpich");
+  const r = KERBY_KIRPICH_RANGE;
+  const areaAc = kase.watershed.areaAc;
+  if (areaAc !== undefined && (areaAc < r.areaMinAc || areaAc > r.areaMaxAc)) {
+    outside.push(
+      `area ${out.area(areaAc).toPrecision(4)} ${out.labels.area} is outside 0.25–150 mi²`,
+    );
+  }
+  if (channel.length > 0 && (channelFt < r.channelMinFt || channelFt > r.channelMaxFt)) {
+    outside.push(
+      `channel length ${out.length(channelFt).toPrecision(4)} ${out.labels.length} is outside 1–50 mi`,
+    );
+  }
+  if (channel.length > 0 && (channelSlope < r.slopeMin || channelSlope > r.slopeMax)) {
+    outside.push(`channel slope ${channelSlope.toPrecision(3)} is outside 0.002–0.02`);
+  }
+  return check(
+    ctx,
+    "kerby-kirpich",
+    "whole-path",
+    part.tcMin + channelMin,
+    {
+      overlandLength: out.length(part.lengthFt),
+      retardanceN: part.retardanceN,
+      overlandSlope: part.slope,
+      overlandMin: part.tcMin,
+      channelLength: out.length(channelFt),
+      channelSlope,
+      channelMin,
+    },
+    r.text,
     outside,
   );
 }

@@ -83,7 +83,7 @@ describe("kinematic-wave through compute", () => {
     const input: CaseJson = {
       units: "us",
       returnPeriodYears: 10,
-      rules: { minTcMin: 0, kinematicWaveK: "theory-1.49" },
+      rules: { minTcMin: 0, kinematicWaveK: "theory-1.49", sheetFlowMaxLength: "300ft" },
       rainfall: { idf: { formula: { "10": { a: 40, b: 0, c: 0.75 } } } },
       segments: [{ regime: "sheet", length: 150, slope: 0.02, n: 0.24 }],
     };
@@ -160,8 +160,39 @@ describe("warnings and unavailable methods", () => {
       "sheet-too-long",
       (c: CaseJson) => ({
         ...c,
+        rules: { ...c.rules, sheetFlowPastCap: "warn" },
         segments: [{ ...c.segments[0]!, length: 150 }, ...c.segments.slice(1)],
       }),
+    ],
+    [
+      "sheet-past-cap",
+      (c: CaseJson) => ({
+        ...c,
+        segments: [{ ...c.segments[0]!, length: 150 }, ...c.segments.slice(1)],
+      }),
+    ],
+    [
+      "sheet-multi-surface",
+      (c: CaseJson) => ({
+        ...c,
+        segments: [
+          { ...c.segments[0]!, length: 40 },
+          { ...c.segments[0]!, length: 40, n: 0.24 },
+          ...c.segments.slice(1),
+        ],
+      }),
+    ],
+    [
+      "lag-cn-from-path",
+      (c: CaseJson) => ({
+        ...c,
+        watershed: { ...c.watershed, cn: undefined },
+        segments: c.segments.map((s) => ({ ...s, cn: 74 })),
+      }),
+    ],
+    [
+      "lag-arc-applied",
+      (c: CaseJson) => ({ ...c, rules: { ...c.rules, arc: "III", lagUsesArc: true } }),
     ],
     ["sheet-not-upstream", (c: CaseJson) => ({ ...c, segments: [...c.segments, c.segments[0]!] })],
     [
@@ -177,9 +208,22 @@ describe("warnings and unavailable methods", () => {
       "lag-slope-from-path",
       (c: CaseJson) => ({ ...c, watershed: { area: 12.4, cn: 74, c: 0.35 } }),
     ],
-    ["kerby-length", (c: CaseJson) => ({ ...c, segments: [{ ...c.segments[0]!, length: 1300 }] })],
-    ["faa-length", (c: CaseJson) => ({ ...c, segments: [{ ...c.segments[0]!, length: 600 }] })],
-    ["kinematic-k-units", (c: CaseJson) => ({ ...c, rules: { kinematicWaveK: 6.99 } })],
+    [
+      "kerby-length",
+      (c: CaseJson) => ({
+        ...c,
+        rules: { ...c.rules, sheetFlowPastCap: "warn" },
+        segments: [{ ...c.segments[0]!, length: 1300 }],
+      }),
+    ],
+    [
+      "faa-length",
+      (c: CaseJson) => ({
+        ...c,
+        rules: { ...c.rules, sheetFlowPastCap: "warn" },
+        segments: [{ ...c.segments[0]!, length: 600 }],
+      }),
+    ],
     [
       "frequency-factor-capped",
       (c: CaseJson) => ({ ...c, returnPeriodYears: 100, watershed: { ...c.watershed, c: 0.95 } }),
@@ -215,12 +259,17 @@ describe("warnings and unavailable methods", () => {
     expect(fields("kerby")).toEqual(["segments[0].kerbyN"]);
     expect(fields("faa")).toEqual(["watershed.c"]);
   });
-  it("uses the ARC of the design return period in the lag method", () => {
-    const r = run({ ...base, rules: { arcByReturnPeriod: { "25": "III" } } });
+  it("uses the ARC of the design return period in the lag method only when the rule says so", () => {
+    const rules = { arcByReturnPeriod: { "25": "III" } };
+    const plain = ok(run({ ...base, rules }), "nrcs-lag");
+    // Off by default: the lag equation takes CN as a retardance index for ARC II.
+    expect([plain.arc, plain.arcApplied, plain.cn]).toEqual(["II", false, 74]);
+    const r = run({ ...base, rules: { ...rules, lagUsesArc: true } });
     const lag = ok(r, "nrcs-lag");
-    expect(lag.arc).toBe("III");
-    // Table 10-1 rows 70 → 85 and 80 → 91, interpolated at 74.
-    expect(lag.cn).toBeCloseTo(85 + 0.4 * (91 - 85), 10);
+    expect([lag.arc, lag.arcApplied]).toEqual(["III", true]);
+    // NEH 630 Ch 10 Table 10-1 row 74 → ARC III 88 [from memory; the row, not an interpolation].
+    expect(lag.cn).toBe(88);
+    expect(codes(r)).toContain("lag-arc-applied");
   });
   it("computes from a parsed input as well as raw JSON", () => {
     expect(compute(parseComputeInput(base)).governing).toEqual(run(base).governing);

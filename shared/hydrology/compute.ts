@@ -4,15 +4,16 @@
  * Computes in US customary units inside (case.ts) and reports in the declared system.
  */
 import { toInternalCase, type InternalCase } from "./case";
-import { faaCheck, kerbyCheck, kirpichCheck } from "./check-methods";
+import { faaCheck, kerbyCheck, kerbyKirpichCheck, kirpichCheck } from "./check-methods";
 import { finite, isHydrologyError } from "./errors";
 import { chooseGoverning } from "./governing";
 import { intensityCurve, type IntensityCurve } from "./idf";
 import { parseComputeInput, type ComputeInput } from "./input-schema";
 import { lagMethod } from "./lag-method";
 import { sheetCapExcesses, type MethodContext } from "./method-context";
-import { kinematicMethod, segmentalMethod, velocityMethod } from "./path-methods";
-import { cappedCfC, frequencyFactor, rationalPeakCfs } from "./rational";
+import { kinematicMethod } from "./kinematic-method";
+import { segmentalMethod, velocityMethod } from "./path-methods";
+import { cappedCfC, CFS_PER_ACRE_INCH_PER_HOUR, frequencyFactor } from "./rational";
 import {
   CAUTION,
   type ComputeResult,
@@ -44,21 +45,47 @@ function pathWarnings(kase: InternalCase, out: OutputUnits, warnings: WarningLis
     }
     if (s.regime !== "sheet") concentratedSeen = true;
   }
+  for (const c of kase.capSplits) {
+    const len = (ft: number) => `${out.length(ft).toPrecision(4)} ${out.labels.length}`;
+    warnings.add({
+      code: "sheet-past-cap",
+      segmentIndex: c.index,
+      message:
+        c.sheetFt > 0
+          ? `sheet flow reaches the cap of ${len(c.limitFt)} (${kase.rules.sheetCap.label}) ` +
+            `${len(c.sheetFt)} into this segment; the remaining ${len(c.pastFt)} is carried as ` +
+            "shallow concentrated flow (rules.sheetFlowPastCap)"
+          : "this sheet segment lies past the sheet-flow cap and is carried as shallow " +
+            "concentrated flow (rules.sheetFlowPastCap)",
+    });
+  }
   for (const e of sheetCapExcesses(kase)) {
     warnings.add({
       code: "sheet-too-long",
       segmentIndex: e.index,
       message:
         `sheet flow length ${out.length(e.cumulativeFt).toPrecision(4)} ${out.labels.length} is past ` +
-        `the cap of ${out.length(e.limitFt).toPrecision(4)} ${out.labels.length} (${kase.rules.sheetCap.label})`,
+        `the cap of ${out.length(e.limitFt).toPrecision(4)} ${out.labels.length} (${kase.rules.sheetCap.label}); ` +
+        'computed as sheet flow (rules.sheetFlowPastCap is "warn")',
     });
   }
-  const k = kase.rules.kinematicK;
-  if (k.suspicious) {
+}
+
+/** Sheet flow over several segments: which rule combined them, and what the others give. */
+function seriesWarnings(methods: MethodResults, warnings: WarningList): void {
+  for (const id of ["kinematic-wave", "nrcs-segmental"] as const) {
+    const m = methods[id];
+    if (m.status !== "ok" || m.overlandSeries === null) continue;
+    const note = m.overlandSeries;
+    const others = note.alternatives
+      .map((a) => `${a.option} ${a.totalMin.toFixed(2)} min`)
+      .join(", ");
     warnings.add({
-      code: "kinematic-k-units",
-      method: "kinematic-wave",
-      message: `kinematic-wave K ${k.declared} looks like a value for the other unit system`,
+      code: "sheet-multi-surface",
+      method: id,
+      message:
+        `sheet flow crosses ${note.sheetSegments} segments: rules.${note.rule} "${note.used}" ` +
+        `(${note.usedLabel}) gives ${m.totalMin.toFixed(2)} min; ${others}`,
     });
   }
 }
@@ -92,6 +119,10 @@ function peakFlow(
       message: `the intensity at ${governing.tcMin.toFixed(2)} min is extrapolated beyond the IDF table`,
     });
   }
+  const unitFactor =
+    kase.units === "si"
+      ? kase.rules.rationalUsFactor.value / CFS_PER_ACRE_INCH_PER_HOUR / 360
+      : kase.rules.rationalUsFactor.value;
   const factor = kase.rules.frequencyFactor
     ? frequencyFactor(kase.returnPeriodYears)
     : { cf: 1, betweenRows: false };
@@ -108,8 +139,9 @@ function peakFlow(
       message: `Cf·C = ${(factor.cf * c).toFixed(3)} is capped at 1`,
     });
   }
+  const cfs = cfc.value * intensity * areaAc * kase.rules.rationalUsFactor.value;
   return {
-    value: finite(out.flow(rationalPeakCfs(cfc.value, intensity, areaAc)), "peak flow"),
+    value: finite(out.flow(cfs), "peak flow"),
     unit: out.labels.flow,
     c,
     cf: factor.cf,
@@ -118,6 +150,8 @@ function peakFlow(
     durationMin: governing.tcMin,
     area: out.area(areaAc),
     returnPeriodYears: kase.returnPeriodYears,
+    unitFactor,
+    unitFactorRule: kase.rules.rationalUsFactor.label,
   };
 }
 
@@ -126,6 +160,9 @@ function rulesApplied(kase: InternalCase): RulesApplied {
   return {
     minTcMin: r.minTcMin,
     sheetFlowMaxLength: r.sheetCap.label,
+    sheetFlowPastCap: r.sheetPastCap,
+    overlandSeries: r.overlandSeries,
+    sheetFlowSeries: r.sheetFlowSeries,
     kinematicWaveK: {
       value: r.kinematicK.declared,
       label: r.kinematicK.label,
@@ -133,11 +170,14 @@ function rulesApplied(kase: InternalCase): RulesApplied {
     },
     arc: r.arc,
     arcMethod: r.arcMethod,
+    lagUsesArc: r.lagUsesArc,
     governing: r.governing,
     frequencyFactor: r.frequencyFactor,
+    rationalUsFactor: r.rationalUsFactor.label,
     allowIdfExtrapolation: r.allowIdfExtrapolation,
     lagCn: r.lagCn,
     manningConstant: r.manningConstant.label,
+    kirpichAdjustment: r.kirpichAdjustment,
   };
 }
 
@@ -165,10 +205,12 @@ export function compute(input: ComputeInput): ComputeResult {
     kirpich: kirpichCheck(ctx),
     kerby: kerbyCheck(ctx),
     faa: faaCheck(ctx),
+    "kerby-kirpich": kerbyKirpichCheck(ctx),
   };
-  const governing = chooseGoverning(methods, kase.rules.governing, warnings);
+  seriesWarnings(methods, warnings);
+  const governing = chooseGoverning(methods, kase.rules.governing, warnings, kase.rules.minTcMin);
   const governed = methods[governing.method];
-  if (governed.status === "ok" && governed.minimumApplied) {
+  if (governed.status === "ok" && governing.tcMin > governed.computedMin) {
     warnings.add({
       code: "min-tc-applied",
       method: governing.method,

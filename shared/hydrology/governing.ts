@@ -41,11 +41,25 @@ export function chooseGoverning(
   methods: MethodResults,
   choice: GoverningChoice,
   warnings: WarningList,
+  minTcMin: number,
 ): Governing {
   if (choice === "largest" || choice === "smallest") {
     return extreme(methods, choice, `rules.governing is "${choice}"`);
   }
   const named = methods[choice];
+  if (named.status === "ok" && named.scope === "overland") {
+    // An overland-only check does not carry the minimum Tc itself; the governing Tc does.
+    const tcMin = Math.max(named.totalMin, minTcMin);
+    return {
+      method: choice,
+      tcMin,
+      tcHr: hrFromMin(tcMin),
+      reason:
+        `${METHOD_LABELS[choice]} governs by the design rules (rules.governing = "${choice}"); ` +
+        "it estimates the overland part of the path only" +
+        (tcMin > named.totalMin ? `, and the minimum Tc of ${minTcMin} min applies` : ""),
+    };
+  }
   if (named.status === "ok") {
     return {
       method: choice,

@@ -7,20 +7,22 @@
  */
 import { z } from "zod";
 
-// Upper bounds keep every result finite; they are far beyond any real rainfall.
-const positive = (what: string, max = 1e6) =>
+// Lower and upper bounds keep every result finite; they are far beyond any real rainfall.
+const between = (what: string, min: number, max: number) =>
   z
-    .number()
-    .positive(`${what} must be greater than 0`)
+    .number({ error: `${what} must be a number` })
+    .min(min, `${what} must be at least ${min}`)
     .max(max, `${what} must be at most ${max.toLocaleString("en-US")}`);
 
 const tableSchema = z
   .strictObject({
     kind: z.literal("table"),
-    durationsMin: z.array(positive("a duration")).min(2, "needs at least 2 durations"),
-    returnPeriodsYears: z.array(positive("a return period")).min(1, "needs a return period"),
-    intensity: z.array(z.array(positive("an intensity"))).optional(),
-    depth: z.array(z.array(positive("a depth"))).optional(),
+    durationsMin: z.array(between("a duration", 0.1, 1e6)).min(2, "needs at least 2 durations"),
+    returnPeriodsYears: z
+      .array(between("a return period", 0.1, 1e6))
+      .min(1, "needs a return period"),
+    intensity: z.array(z.array(between("an intensity", 1e-4, 1e5))).optional(),
+    depth: z.array(z.array(between("a depth", 1e-4, 1e5))).optional(),
     note: z.string().optional(),
     source: z.string().optional(),
   })
@@ -29,9 +31,12 @@ const tableSchema = z
   });
 
 const shermanSchema = z.strictObject({
-  a: positive("a", 1e9),
-  b: z.number().min(0, "b must be at least 0").max(1e4, "b must be at most 10,000"),
-  c: z.number().gt(0, "c must be greater than 0").lt(2, "c must be less than 2"),
+  a: between("a", 1e-3, 1e9),
+  b: between("b", 0, 1e4),
+  c: z
+    .number({ error: "c must be a number" })
+    .min(0.05, "c must be at least 0.05")
+    .lt(2, "c must be less than 2"),
 });
 
 const formulaSchema = z
@@ -50,15 +55,25 @@ const formulaSchema = z
         message: "needs at least one return period",
       });
     }
+    const seen = new Map<number, string>();
     for (const key of keys) {
-      const years = Number(key);
-      if (!(Number.isFinite(years) && years > 0)) {
+      const years = /^\s*\d+(\.\d+)?\s*$/.test(key) ? Number(key) : Number.NaN;
+      if (!(years >= 0.1 && years <= 1e6)) {
         ctx.addIssue({
           code: "custom",
           path: ["formula", key],
-          message: 'keys must be return periods in years, e.g. "25"',
+          message: `"${key}" is not a return period in years (e.g. "25")`,
         });
+        continue;
       }
+      const first = seen.get(years);
+      if (first !== undefined) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["formula", key],
+          message: `is the same return period as "${first}": give each return period once`,
+        });
+      } else seen.set(years, key);
     }
   });
 
@@ -77,7 +92,7 @@ export const idfSchema = z.preprocess(
 );
 
 export const rainfallSchema = z.strictObject({
-  p2_24h: positive("the 2-year 24-hour depth").optional(),
+  p2_24h: between("the 2-year 24-hour depth", 0.01, 2000).optional(),
   idf: idfSchema,
   note: z.string().optional(),
   source: z.string().optional(),

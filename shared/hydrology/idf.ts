@@ -52,8 +52,10 @@ export interface IntensityCurve {
 export function returnPeriodProblem(data: IdfData, returnPeriodYears: number): string | null {
   if (data.kind === "formula") {
     if (data.curves.has(returnPeriodYears)) return null;
-    const keys = [...data.curves.keys()].sort((x, y) => x - y).join(", ");
-    return `no IDF formula for the ${returnPeriodYears}-year storm (formulas given: ${keys})`;
+    // Keys that are not numbers are refused by the schema with their own message.
+    const keys = [...data.curves.keys()].filter(Number.isFinite).sort((x, y) => x - y);
+    if (keys.length === 0) return null;
+    return `no IDF formula for the ${returnPeriodYears}-year storm (formulas given: ${keys.join(", ")} years)`;
   }
   const periods = data.returnPeriodsYears;
   const first = periods[0];
@@ -102,7 +104,13 @@ export function intensityCurve(
   const extrapolatedMin: number[] = [];
   if (data.kind === "formula") {
     const coefficients = data.curves.get(returnPeriodYears);
-    if (coefficients === undefined) throw new Error("unreachable: checked above");
+    if (coefficients === undefined) {
+      throw new HydrologyError(
+        "idf-out-of-range",
+        "returnPeriodYears",
+        `no IDF formula for the ${returnPeriodYears}-year storm`,
+      );
+    }
     return {
       returnPeriodYears,
       durationRangeMin: undefined,

@@ -35,11 +35,11 @@ describe("compute input schema", () => {
     expect(parseComputeInput(example()).segments).toHaveLength(3);
   });
   it.each([
-    ["segments[2].slope", ["segments", 2, "slope"], 0, /greater than 0/],
+    ["segments[2].slope", ["segments", 2, "slope"], 0, /at least 0.00001/],
     ["segments[0].slope", ["segments", 0, "slope"], 2, /percent/],
-    ["segments[0].length", ["segments", 0, "length"], -3, /greater than 0/],
-    ["segments[0].n", ["segments", 0, "n"], 1, /between 0 and 1/],
-    ["segments[2].manningN", ["segments", 2, "manningN"], 0, /between 0 and 1/],
+    ["segments[0].length", ["segments", 0, "length"], -3, /at least 0.000001/],
+    ["segments[0].n", ["segments", 0, "n"], 1.5, /at most 1/],
+    ["segments[2].manningN", ["segments", 2, "manningN"], 0, /at least 0.005/],
     ["segments[1].k", ["segments", 1, "k"], REMOVE, /required/],
     ["segments[1].regime", ["segments", 1, "regime"], "pipe", /sheet/],
     ["segments[0].slop", ["segments", 0, "slop"], 1, /not a known field/],

@@ -11,37 +11,47 @@ import { idfDataFromInput } from "./case";
 import { returnPeriodProblem } from "./idf";
 import { rainfallSchema } from "./idf-schema";
 import { minimumWettedPerimeter } from "./manning";
-import { rulesSchema } from "./rules";
+import { rulesSchema, rulesUnitProblems } from "./rules";
 import { inputError } from "./zod-errors";
 
-// Upper bounds keep every result finite; they are far beyond any real flow path.
-const positive = (what: string, max = 1e6) =>
+/**
+ * Every number has a physical lower bound as well as an upper one: the bounds keep every
+ * equation well conditioned (a pipe depth of 1e-20 or a k of 1e-320 would otherwise end in a
+ * non-finite result), and they lie far outside any real flow path. Bounds are in the declared
+ * unit and hold in either system.
+ */
+const between = (what: string, min: number, max: number, why = "") =>
   z
-    .number()
-    .positive(`${what} must be greater than 0`)
-    .max(max, `${what} must be at most ${max.toLocaleString("en-US")}`);
-const fraction = (what: string) =>
-  z
-    .number()
-    .gt(0, `${what} must be between 0 and 1 (exclusive)`)
-    .lt(1, `${what} must be between 0 and 1 (exclusive)`);
+    .number({ error: numberError(what) })
+    .min(min, `${what} must be at least ${fmt(min)}${why}`)
+    .max(max, `${what} must be at most ${fmt(max)}`);
 
-const length = positive("a length");
+/** "is required" for a missing value (as zod-errors words it), else what is wanted. */
+export const numberError = (what: string) => (issue: { input?: unknown }) =>
+  issue.input === undefined ? "is required (a number)" : `${what} must be a number`;
+
+function fmt(x: number): string {
+  return x >= 0.001 ? x.toLocaleString("en-US", { maximumFractionDigits: 6 }) : String(x);
+}
+
+const length = between("a length", 1e-6, 1e6);
 const slope = z
-  .number()
-  .gt(0, "must be greater than 0 (rise/run, e.g. 0.02 for 2 %)")
+  .number({ error: "must be a number (rise/run)" })
+  .min(
+    1e-5,
+    "must be at least 0.00001 (0.001 %, rise/run): flatter ground is below survey accuracy and gives meaningless travel times",
+  )
   .lte(1, "must be at most 1 (rise/run); a value over 1 usually means percent was entered");
-const curveNumber = z
-  .number()
-  .gt(0, "CN must be greater than 0")
-  .lte(100, "CN must be at most 100");
+const curveNumber = between("CN", 1, 100);
 const text = z.string().max(500).optional();
+/** Velocity coefficient k of V = k·s^0.5 (published 2.5–20.3 ft/s, 0.76–6.2 m/s). */
+const velocityK = (what: string) => between(what, 0.1, 200, " (ft/s or m/s)");
 
 const givenSection = z
   .strictObject({
     shape: z.literal("given"),
-    flowArea: positive("the flow area"),
-    wettedPerimeter: positive("the wetted perimeter"),
+    flowArea: between("the flow area", 1e-4, 1e6),
+    wettedPerimeter: between("the wetted perimeter", 1e-3, 1e6),
   })
   .superRefine((s, ctx) => {
     const min = minimumWettedPerimeter(s.flowArea);
@@ -57,10 +67,7 @@ const givenSection = z
 const trapezoidSection = z
   .strictObject({
     shape: z.literal("trapezoid"),
-    bottomWidth: z
-      .number()
-      .min(0, "the bottom width must be at least 0")
-      .max(1e5, "the bottom width must be at most 100,000"),
+    bottomWidth: between("the bottom width", 0, 1e5),
     sideSlope: z
       .number()
       .min(0, "side slope (H:V) must be at least 0")
@@ -76,7 +83,7 @@ const trapezoidSection = z
       .min(0, "side slope (H:V) must be at least 0")
       .max(1000, "side slope (H:V) must be at most 1,000")
       .optional(),
-    depth: positive("the flow depth", 1000),
+    depth: between("the flow depth", 1e-3, 1000),
   })
   .superRefine((s, ctx) => {
     const left = s.sideSlopeLeft ?? s.sideSlope;
@@ -99,8 +106,8 @@ const trapezoidSection = z
 const circularSection = z
   .strictObject({
     shape: z.literal("circular"),
-    diameter: positive("the diameter", 1000),
-    flowDepth: positive("the depth of flow").optional(),
+    diameter: between("the diameter", 0.01, 1000),
+    flowDepth: between("the depth of flow", 1e-4, 1000).optional(),
   })
   .superRefine((s, ctx) => {
     if (s.flowDepth !== undefined && s.flowDepth > s.diameter) {
@@ -108,6 +115,13 @@ const circularSection = z
         code: "custom",
         path: ["flowDepth"],
         message: "must not exceed the diameter",
+      });
+    } else if (s.flowDepth !== undefined && s.flowDepth < 0.01 * s.diameter) {
+      // Below 1 % full the section's angle rounds to nothing and the velocity is meaningless.
+      ctx.addIssue({
+        code: "custom",
+        path: ["flowDepth"],
+        message: "must be at least 1 % of the diameter",
       });
     }
   });
@@ -136,21 +150,23 @@ const common = { length, slope, cn: curveNumber.optional(), label: text, surface
 const sheetSegment = z.strictObject({
   regime: z.literal("sheet"),
   ...common,
-  n: fraction("Manning's n for sheet flow"),
-  k: positive("the velocity coefficient k", 1000).optional(),
-  kerbyN: fraction("Kerby's retardance N").optional(),
+  n: between("Manning's n for sheet flow", 0.005, 1),
+  k: velocityK("the velocity coefficient k").optional(),
+  /** k for the part past the sheet-flow cap carried as shallow flow (else `k`). */
+  shallowK: velocityK("the shallow-flow velocity coefficient").optional(),
+  kerbyN: between("Kerby's retardance N", 0.01, 1).optional(),
 });
 
 const shallowSegment = z.strictObject({
   regime: z.literal("shallow"),
   ...common,
-  k: positive("the velocity coefficient k", 1000),
+  k: velocityK("the velocity coefficient k"),
 });
 
 const channelSegment = z.strictObject({
   regime: z.literal("channel"),
   ...common,
-  manningN: fraction("Manning's n"),
+  manningN: between("Manning's n", 0.005, 0.5),
   section: sectionSchema,
 });
 
@@ -163,21 +179,17 @@ export const segmentSchema = z.discriminatedUnion(
 );
 
 export const watershedSchema = z.strictObject({
-  area: positive("the area", 1e9).optional(),
-  avgSlopePercent: z
-    .number()
-    .gt(0, "must be greater than 0 (percent)")
-    .lte(100, "must be at most 100 (percent)")
-    .optional(),
+  area: between("the area", 1e-3, 1e9).optional(),
+  avgSlopePercent: between("the average land slope", 0.001, 100, " (percent)").optional(),
   cn: curveNumber.optional(),
-  c: z.number().gt(0, "C must be greater than 0").lte(1, "C must be at most 1").optional(),
+  c: between("C", 0.01, 1).optional(),
   label: text,
 });
 
 export const computeInputSchema = z
   .strictObject({
     units: z.enum(["us", "si"], { error: 'must be "us" or "si"' }),
-    returnPeriodYears: positive("the return period", 1e6),
+    returnPeriodYears: between("the return period", 0.1, 1e6),
     rules: rulesSchema.optional(),
     rainfall: rainfallSchema,
     watershed: watershedSchema.optional(),
@@ -195,6 +207,9 @@ export const computeInputSchema = z
     );
     if (problem !== null)
       ctx.addIssue({ code: "custom", path: ["returnPeriodYears"], message: problem });
+    for (const p of rulesUnitProblems(input.rules, input.units)) {
+      ctx.addIssue({ code: "custom", path: ["rules", ...p.path], message: p.message });
+    }
   });
 
 export type ComputeInput = z.output<typeof computeInputSchema>;

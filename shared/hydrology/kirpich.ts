@@ -7,7 +7,11 @@
  * Source: Kirpich (1940), Civil Engineering 10(6), as printed in a state DOT drainage manual.
  * Validity: small steep rural basins; developed on seven Tennessee farm basins of about 1 to
  * 112 ac with slopes of 3 to 10 % [from memory]. L is the whole flow path, S its fall / length.
+ * Adjustment factors (a design rule, off by default): × 0.4 for overland flow on concrete or
+ * asphalt, × 0.2 for concrete channels; none for bare soil or roadside ditches (Chow, Maidment &
+ * Mays (1988) Table 15.1.2 [from memory]).
  */
+import { AS_REPRODUCED } from "./citation";
 import { M_PER_FT } from "./units";
 
 export const KIRPICH_COEFF_US = 0.0078;
@@ -22,5 +26,16 @@ export const KIRPICH_RANGE = {
   areaMaxAc: 112,
   slopeMinFtPerFt: 0.03,
   slopeMaxFtPerFt: 0.1,
-  text: "small rural basins, about 1–112 ac, slopes 3–10 % (Kirpich 1940) [from memory]",
+  text: `small rural basins, about 1–112 ac, slopes 3–10 % (Kirpich 1940; ${AS_REPRODUCED})`,
 } as const;
+
+export const KIRPICH_ADJUSTMENTS = ["none", "paved-overland", "concrete-channel"] as const;
+export type KirpichAdjustment = (typeof KIRPICH_ADJUSTMENTS)[number];
+
+export const KIRPICH_FACTORS: Readonly<Record<KirpichAdjustment, number>> = {
+  none: 1,
+  "paved-overland": 0.4,
+  "concrete-channel": 0.2,
+};
+
+export const KIRPICH_ADJUSTMENT_SOURCE = `Chow, Maidment & Mays (1988) Table 15.1.2 (${AS_REPRODUCED})`;

@@ -83,6 +83,44 @@ export function segmentResult(
   return result;
 }
 
+/**
+ * One result per input segment, in input order: the parts of a sheet segment cut at the
+ * sheet-flow cap (case.ts) are added up, the time past the cap kept beside the total.
+ * `parts[i]` is the result of `kase.segments[i]`.
+ */
+export function mergeParts(
+  kase: InternalCase,
+  parts: readonly SegmentResult[],
+  out: OutputUnits,
+): SegmentResult[] {
+  if (kase.capSplits.length === 0) return [...parts];
+  const merged: SegmentResult[] = [];
+  let lengthFt = 0;
+  for (let i = 0; i < parts.length; i += 1) {
+    const part = parts[i] as SegmentResult;
+    const seg = kase.segments[i] as InternalSegment;
+    const last = merged[merged.length - 1];
+    if (last === undefined || last.index !== part.index) {
+      lengthFt = seg.lengthFt;
+      merged.push(seg.pastCap ? { ...part, pastCapMin: part.travelTimeMin } : part);
+      continue;
+    }
+    lengthFt += seg.lengthFt;
+    const t = last.travelTimeMin + part.travelTimeMin;
+    const both: { -readonly [K in keyof SegmentResult]: SegmentResult[K] } = {
+      ...last,
+      travelTimeMin: t,
+      travelTimeHr: hrFromMin(t),
+      pastCapMin: (last.pastCapMin ?? 0) + (seg.pastCap ? part.travelTimeMin : 0),
+    };
+    if (last.velocity !== undefined && part.velocity !== undefined) {
+      both.velocity = out.length(lengthFt) / (t * 60);
+    } else delete both.velocity;
+    merged[merged.length - 1] = both;
+  }
+  return merged;
+}
+
 export function totals(computedMin: number, minTcMin: number, what: string) {
   const computed = finite(computedMin, `${what} Tc`);
   const totalMin = Math.max(computed, minTcMin);
@@ -123,7 +161,10 @@ export interface CapExcess {
   readonly limitFt: number;
 }
 
-/** Sheet segments where the sheet flow length so far passes the design cap. */
+/**
+ * Sheet segments where the sheet flow length so far passes the design cap (only with
+ * rules.sheetFlowPastCap = "warn"; the other rules leave no sheet flow past the cap).
+ */
 export function sheetCapExcesses(kase: InternalCase): CapExcess[] {
   const cap = kase.rules.sheetCap;
   let cumulativeFt = 0;

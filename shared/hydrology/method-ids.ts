@@ -1,11 +1,11 @@
 /**
  * Method ids (the published names, kept stable: the command line, the API and saved sheets use
- * them) and their labels. The first four compute a time of concentration; the last three are
- * labelled checks.
+ * them) and their labels. The first four compute a time of concentration; the rest are labelled
+ * checks.
  */
 
 export const TC_METHOD_IDS = ["velocity", "nrcs-lag", "kinematic-wave", "nrcs-segmental"] as const;
-export const CHECK_METHOD_IDS = ["kirpich", "kerby", "faa"] as const;
+export const CHECK_METHOD_IDS = ["kirpich", "kerby", "faa", "kerby-kirpich"] as const;
 export const METHOD_IDS = [...TC_METHOD_IDS, ...CHECK_METHOD_IDS] as const;
 
 export type TcMethodId = (typeof TC_METHOD_IDS)[number];
@@ -20,6 +20,7 @@ export const METHOD_LABELS: Readonly<Record<MethodId, string>> = {
   kirpich: "Kirpich check",
   kerby: "Kerby check",
   faa: "FAA check",
+  "kerby-kirpich": "Kerby–Kirpich check",
 };
 
 export function isCheckMethod(id: MethodId): id is CheckMethodId {

@@ -115,3 +115,14 @@ export function sheetFlowTimesHr(
   }
   return out;
 }
+
+/** How each option is named on the sheet, with its basis. */
+export const OVERLAND_SERIES_LABELS: Readonly<Record<OverlandSeries, string>> = {
+  cascade: "planes in series, each carrying the flow of the planes above (derived)",
+  independent: "each segment its own plane from zero flow (as some manuals print it)",
+};
+export const SHEET_FLOW_SERIES_LABELS: Readonly<Record<SheetFlowSeries, string>> = {
+  cascade: "planes in series (an extension of TR-55 eq 3-3, derived)",
+  "weighted-n": "one plane with the length-weighted n (common practice)",
+  independent: "each segment its own plane (TR-55 eq 3-3 per segment)",
+};

@@ -23,8 +23,10 @@ export interface SegmentResult {
   readonly flowArea?: number;
   readonly wettedPerimeter?: number;
   readonly hydraulicRadius?: number;
-  /** Curve number used (nrcs-lag per-segment sum). */
+  /** Curve number used (nrcs-lag, the segment alone). */
   readonly cn?: number;
+  /** Of travelTimeMin, the time past the sheet-flow cap, carried as shallow flow. */
+  readonly pastCapMin?: number;
 }
 
 export interface Validity {
@@ -62,7 +64,28 @@ export interface MethodOk extends MethodCommon {
   readonly validity: Validity;
 }
 
+/**
+ * Sheet flow over more than one segment: which series rule combined them, and the Tc (with the
+ * minimum applied) each other rule would give. Null with one sheet segment or none.
+ */
+export interface OverlandSeriesNote {
+  readonly rule: "overlandSeries" | "sheetFlowSeries";
+  readonly used: string;
+  readonly usedLabel: string;
+  readonly sheetSegments: number;
+  readonly alternatives: ReadonlyArray<{
+    readonly option: string;
+    readonly label: string;
+    readonly totalMin: number;
+  }>;
+}
+
+export interface SegmentalResult extends MethodOk {
+  readonly overlandSeries: OverlandSeriesNote | null;
+}
+
 export interface KinematicResult extends MethodOk {
+  readonly overlandSeries: OverlandSeriesNote | null;
   /** Design intensity on the overland segments, at the solved overland time. */
   readonly intensity: number;
   readonly overlandMin: number;
@@ -76,14 +99,20 @@ export interface KinematicResult extends MethodOk {
 
 export interface LagResult extends MethodOk {
   readonly flowLength: number;
+  /** Where the CN came from: the subcatchment's area-weighted CN or the path's segments. */
+  readonly cnSource: "watershed" | "path-weighted";
   readonly cnArcII: number;
   readonly cn: number;
+  /** The ARC of the CN used: II unless rules.lagUsesArc is on. */
   readonly arc: Arc;
   readonly arcMethod: ArcMethod;
+  readonly arcApplied: boolean;
   readonly avgSlopePercent: number;
   readonly slopeSource: "watershed" | "flow-path";
   readonly lagHr: number;
-  /** Σ of the lag equation applied to each segment on its own (reported beside totalMin). */
+  /** Always false: `segments` give the lag of each segment alone; they do not add up to Tc. */
+  readonly segmentTimesAdditive: false;
+  /** Σ of the lag equation on each segment alone: NOT the method's Tc (kept for comparison). */
   readonly segmentSumMin: number;
 }
 
@@ -98,10 +127,11 @@ export interface MethodResults {
   readonly velocity: Outcome<MethodOk>;
   readonly "nrcs-lag": Outcome<LagResult>;
   readonly "kinematic-wave": Outcome<KinematicResult>;
-  readonly "nrcs-segmental": Outcome<MethodOk>;
+  readonly "nrcs-segmental": Outcome<SegmentalResult>;
   readonly kirpich: Outcome<CheckResult>;
   readonly kerby: Outcome<CheckResult>;
   readonly faa: Outcome<CheckResult>;
+  readonly "kerby-kirpich": Outcome<CheckResult>;
 }
 
 export interface Governing {
@@ -121,11 +151,20 @@ export interface PeakFlow {
   readonly durationMin: number;
   readonly area: number;
   readonly returnPeriodYears: number;
+  /**
+   * Q / (Cf·C·i·A) in the declared units: US 43,560/43,200 = 1.00833 ("exact") or 1 ("1.0");
+   * SI 1/360 (or 1/(360·1.00833) with "1.0", which keeps the US convention's figure).
+   */
+  readonly unitFactor: number;
+  readonly unitFactorRule: "exact" | "1.0";
 }
 
 export interface RulesApplied {
   readonly minTcMin: number;
   readonly sheetFlowMaxLength: string;
+  readonly sheetFlowPastCap: "shallow" | "refuse" | "warn";
+  readonly overlandSeries: "cascade" | "independent";
+  readonly sheetFlowSeries: "cascade" | "weighted-n" | "independent";
   readonly kinematicWaveK: {
     readonly value: number;
     readonly label: string;
@@ -133,11 +172,14 @@ export interface RulesApplied {
   };
   readonly arc: Arc;
   readonly arcMethod: ArcMethod;
+  readonly lagUsesArc: boolean;
   readonly governing: string;
   readonly frequencyFactor: boolean;
+  readonly rationalUsFactor: "exact" | "1.0";
   readonly allowIdfExtrapolation: boolean;
   readonly lagCn: "path-weighted" | "watershed";
   readonly manningConstant: "1.49" | "exact";
+  readonly kirpichAdjustment: "none" | "paved-overland" | "concrete-channel";
 }
 
 export interface ComputeResult {

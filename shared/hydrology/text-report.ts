@@ -5,6 +5,7 @@
  */
 import type { ComputeInput } from "./input-schema";
 import { METHOD_IDS, type MethodId } from "./method-ids";
+import { rationalFormula } from "./rational";
 import type { ComputeResult, MethodOk, MethodResults } from "./result-types";
 
 type Cell = string;
@@ -30,7 +31,7 @@ function summary(methods: MethodResults, governing: ComputeResult["governing"]):
     const notes = [
       mark,
       m.minimumApplied ? `minimum applied (computed ${m.computedMin.toFixed(2)} min)` : "",
-      m.scope === "overland" ? "overland part only" : "",
+      m.scope === "overland" ? "overland part only, no minimum Tc" : "",
       m.validity.outside.length > 0 ? `outside range: ${m.validity.outside.join("; ")}` : "",
     ].filter((n) => n !== "");
     return [id, m.kind, fixed(m.totalMin, 2), fixed(m.totalHr, 3), notes.join("; ")];
@@ -40,6 +41,8 @@ function summary(methods: MethodResults, governing: ComputeResult["governing"]):
 
 function segmentTable(m: MethodOk, input: ComputeInput, result: ComputeResult): string {
   const u = result.unitLabels;
+  // The lag of each segment alone does not add up to the method's Tc: say so in the column.
+  const time = m.id === "nrcs-lag" ? "Tc alone min (not additive)" : "Tt min";
   const rows = m.segments.map((s) => {
     const seg = input.segments[s.index];
     return [
@@ -54,7 +57,7 @@ function segmentTable(m: MethodOk, input: ComputeInput, result: ComputeResult): 
     ];
   });
   return table(
-    ["#", "regime", "equation", `length ${u.length}`, "slope", `V ${u.velocity}`, "Tt min", "CN"],
+    ["#", "regime", "equation", `length ${u.length}`, "slope", `V ${u.velocity}`, time, "CN"],
     rows,
     new Set([0, 3, 4, 5, 6, 7]),
   );
@@ -74,13 +77,27 @@ function details(id: MethodId, m: MethodOk, result: ComputeResult): string[] {
   const lag = result.methods["nrcs-lag"];
   if (id === "nrcs-lag" && lag.status === "ok") {
     lines.push(
-      `  whole path: ℓ = ${lag.flowLength.toFixed(1)} ${u.length}, CN(II) ${lag.cnArcII.toFixed(1)}` +
-        ` → CN(${lag.arc}) ${lag.cn.toFixed(1)} (${lag.arcMethod}), Y = ` +
-        `${lag.avgSlopePercent.toFixed(2)} % (${lag.slopeSource}), lag ${lag.lagHr.toFixed(3)} h`,
-      `  per-segment sum (reported beside it): ${lag.segmentSumMin.toFixed(2)} min`,
+      `  whole path: ℓ = ${lag.flowLength.toFixed(1)} ${u.length}, CN ${lag.cnArcII.toFixed(1)} ` +
+        `(${lag.cnSource === "watershed" ? "area-weighted, subcatchment" : "length-weighted, path"})` +
+        (lag.arcApplied
+          ? ` → CN(${lag.arc}) ${lag.cn.toFixed(1)} (${lag.arcMethod}, rules.lagUsesArc)`
+          : " for ARC II") +
+        `, Y = ${lag.avgSlopePercent.toFixed(2)} % (${lag.slopeSource}), lag ${lag.lagHr.toFixed(3)} h`,
+      "  the segment rows give each segment's lag alone: they are not additive and make no total",
     );
   }
-  if (id === "kirpich" || id === "kerby" || id === "faa") {
+  const series =
+    id === "kinematic-wave" || id === "nrcs-segmental" ? result.methods[id] : undefined;
+  if (series?.status === "ok" && series.overlandSeries !== null) {
+    const n = series.overlandSeries;
+    lines.push(
+      `  sheet flow over ${n.sheetSegments} segments: rules.${n.rule} "${n.used}" (${n.usedLabel})`,
+      ...n.alternatives.map(
+        (a) => `    "${a.option}" (${a.label}) would give ${a.totalMin.toFixed(2)} min`,
+      ),
+    );
+  }
+  if (id === "kirpich" || id === "kerby" || id === "faa" || id === "kerby-kirpich") {
     const check = result.methods[id];
     if (check.status === "ok") {
       const parts = Object.entries(check.inputs).map(
@@ -110,9 +127,7 @@ export function formatResultText(input: ComputeInput, result: ComputeResult): st
   if (q === null) out.push("Peak flow: not computed (see warnings)");
   else {
     out.push(
-      `Peak flow (rational): Q = Cf·C·i·A = ${q.cf} × ${q.c} × ${q.intensity.toFixed(3)} ${u.intensity} × ` +
-        `${Number(q.area.toPrecision(6))} ${u.area} = ${q.value.toPrecision(4)} ${q.unit} ` +
-        `(i at ${q.durationMin.toFixed(2)} min)`,
+      `Peak flow (rational): ${rationalFormula(q, u)} (i at ${q.durationMin.toFixed(2)} min)`,
     );
   }
   out.push("", summary(result.methods, g));

@@ -16,7 +16,7 @@ function describe(issue: Issue): FieldProblem[] {
         message: "is not a known field (check the spelling; see docs/calc-format.md)",
       }));
     case "invalid_type": {
-      const missing = /received undefined/.test(issue.message);
+      const missing = /received undefined|^is required/.test(issue.message);
       return [
         {
           path,

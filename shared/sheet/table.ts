@@ -25,6 +25,7 @@ const METHOD_SHORT: Record<MethodId, string> = {
   kirpich: "Kirpich",
   kerby: "Kerby",
   faa: "FAA",
+  "kerby-kirpich": "Kerby–Kirpich",
 };
 
 export function sheetColumns(sheet: TravelTimeSheet): SheetColumn[] {
