@@ -34,7 +34,7 @@ const INTENSITY = [
 ];
 
 /** A synthetic path: two sheet segments, then shallow and channel segments in turn. */
-function syntheticInput(segmentCount: number): ComputeInput {
+function syntheticInput(segmentCount: number, extraRules: object = {}): ComputeInput {
   const segments: unknown[] = [];
   for (let j = 0; j < segmentCount; j += 1) {
     const slope = 0.005 + 0.03 * (((j * 7919) % 100) / 100);
@@ -59,7 +59,12 @@ function syntheticInput(segmentCount: number): ComputeInput {
   return parseComputeInput({
     units: "us",
     returnPeriodYears: 25,
-    rules: { governing: "largest", sheetFlowMaxLength: "300ft", allowIdfExtrapolation: true },
+    rules: {
+      governing: "largest",
+      sheetFlowMaxLength: "300ft",
+      allowIdfExtrapolation: true,
+      ...extraRules,
+    },
     rainfall: {
       p2_24h: 3.1,
       idf: { durationsMin: DURATIONS, returnPeriodsYears: PERIODS, intensity: INTENSITY },
@@ -99,6 +104,12 @@ export async function run(): Promise<Row[]> {
   const t50 = timeMs(() => compute(path50));
   const t50Parse = timeMs(() => compute(parseComputeInput(raw50)));
   const t5000 = timeMs(() => compute(path5000), 1000);
+  // Monte Carlo of every method: one run of 10,000 draws (after one warm-up run).
+  const mcInput = syntheticInput(50, { uncertainty: { draws: 10_000 } });
+  compute(mcInput, { uncertainty: true });
+  const mcStart = performance.now();
+  compute(mcInput, { uncertainty: true });
+  const tMc = performance.now() - mcStart;
   const tFit = timeMs(() =>
     fitIdfTable({ durationsMin: DURATIONS, returnPeriodsYears: PERIODS, intensity: INTENSITY }),
   );
@@ -116,6 +127,13 @@ export async function run(): Promise<Row[]> {
       unit: "ms/evaluation",
     },
     { name: "all methods, 5,000-segment path", value: t5000.toFixed(3), unit: "ms/evaluation" },
+    {
+      name: "Monte Carlo, 10,000 draws of all methods, 50-segment path",
+      target: "≤ 1 s",
+      value: (tMc / 1000).toFixed(3),
+      unit: "s",
+      ok: tMc <= 1000,
+    },
     {
       name: "IDF Sherman fit, 4 return periods × 8 durations",
       value: tFit.toFixed(3),

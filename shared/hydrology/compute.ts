@@ -22,6 +22,7 @@ import {
   type PeakFlow,
   type RulesApplied,
 } from "./result-types";
+import { uncertainty } from "./uncertainty/analysis";
 import { outputUnits, type OutputUnits } from "./units";
 import { LOW_SLOPE_FT_PER_FT, WarningList } from "./warnings";
 
@@ -181,8 +182,13 @@ function rulesApplied(kase: InternalCase): RulesApplied {
   };
 }
 
+export interface ComputeOptions {
+  /** Add the sensitivity view and the Monte Carlo band (rules.uncertainty sets the bands). */
+  readonly uncertainty?: boolean;
+}
+
 /** Computes every method for a parsed input. Throws a HydrologyError for data it cannot serve. */
-export function compute(input: ComputeInput): ComputeResult {
+export function compute(input: ComputeInput, options: ComputeOptions = {}): ComputeResult {
   const kase = toInternalCase(input);
   const out = outputUnits(kase.units);
   const warnings = new WarningList();
@@ -227,10 +233,11 @@ export function compute(input: ComputeInput): ComputeResult {
     peakFlow: peakFlow(kase, curve, governing, out, warnings),
     warnings: warnings.items,
     caution: CAUTION,
+    ...(options.uncertainty === true && { uncertainty: uncertainty(kase, out) }),
   };
 }
 
 /** Parses raw JSON-like input and computes; throws a HydrologyError naming the field path. */
-export function computeFromJson(raw: unknown): ComputeResult {
-  return compute(parseComputeInput(raw));
+export function computeFromJson(raw: unknown, options: ComputeOptions = {}): ComputeResult {
+  return compute(parseComputeInput(raw), options);
 }

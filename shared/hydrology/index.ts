@@ -25,7 +25,17 @@ export { idfSchema, rainfallSchema, type IdfInput, type RainfallInput } from "./
 export * from "./input-schema";
 export { fieldProblems, inputError } from "./zod-errors";
 export * from "./result-types";
-export { compute, computeFromJson } from "./compute";
+export { compute, computeFromJson, type ComputeOptions } from "./compute";
+export * from "./overland-series";
+export {
+  INPUT_GROUPS,
+  INPUT_GROUP_LABELS,
+  type InputGroup,
+  type Percentiles,
+  type SensitivityBar,
+  type UncertaintyResult,
+} from "./uncertainty/analysis";
+export { BAND_DEFAULTS, BAND_SOURCES, bandsSchema } from "./uncertainty/bands";
 export { formatResultText } from "./text-report";
 // The published surface defaults (n, k, CN, C), each value with its source.
 export * as catalog from "./catalog";

@@ -5,6 +5,7 @@
 import type { Arc, ArcMethod } from "./arc";
 import type { MethodId } from "./method-ids";
 import type { UnitLabels, UnitSystem } from "./units";
+import type { UncertaintyResult } from "./uncertainty/analysis";
 import type { HydrologyWarning } from "./warnings";
 
 export type Regime = "sheet" | "shallow" | "channel";
@@ -192,6 +193,8 @@ export interface ComputeResult {
   readonly peakFlow: PeakFlow | null;
   readonly warnings: readonly HydrologyWarning[];
   readonly caution: string;
+  /** With compute(input, { uncertainty: true }): the sensitivity view and Monte Carlo band. */
+  readonly uncertainty?: UncertaintyResult;
 }
 
 export const CAUTION =

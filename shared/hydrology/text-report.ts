@@ -138,6 +138,7 @@ export function formatResultText(input: ComputeInput, result: ComputeResult): st
     if (m.segments.length > 0) out.push(segmentTable(m, input, result));
     out.push(...details(id, m, result));
   }
+  if (result.uncertainty !== undefined) out.push("", ...uncertaintyLines(result));
   out.push("", "Warnings:");
   if (result.warnings.length === 0) out.push("  none");
   for (const w of result.warnings) {
@@ -149,4 +150,46 @@ export function formatResultText(input: ComputeInput, result: ComputeResult): st
   }
   out.push("", `CAUTION: ${result.caution}`);
   return out.join("\n");
+}
+
+const range = (p: { p10: number; p50: number; p90: number } | null, digits: number) =>
+  p === null
+    ? "not available"
+    : `P10 ${p.p10.toFixed(digits)}, P50 ${p.p50.toFixed(digits)}, P90 ${p.p90.toFixed(digits)}`;
+
+/** The sensitivity view and the Monte Carlo band as text. */
+function uncertaintyLines(result: ComputeResult): string[] {
+  const u = result.uncertainty;
+  if (u === undefined) return [];
+  const mc = u.monteCarlo;
+  const flow = result.unitLabels.flow;
+  const lines = [
+    `How sure: Monte Carlo, ${mc.draws} draws, seed ${mc.seed} (${mc.distribution})`,
+    `  governing Tc min: ${range(mc.governingTcMin, 2)}`,
+    `  peak flow ${flow}: ${range(mc.peak, 3)}`,
+    ...METHOD_IDS.map((id) => `  ${id} Tc min: ${range(mc.methods[id], 2)}`),
+    "",
+    "Sensitivity (each input at the ends of its band, the others as entered):",
+  ];
+  const e = u.sensitivity.entered;
+  const fmt = (v: number | null, d: number) => (v === null ? "—" : v.toFixed(d));
+  const rows = u.sensitivity.bars.map((b) => [
+    b.label,
+    fmt(b.low.tcMin, 2),
+    fmt(b.high.tcMin, 2),
+    fmt(b.low.peak, 3),
+    fmt(b.high.peak, 3),
+    b.band,
+  ]);
+  lines.push(
+    table(
+      ["input", "Tc low", "Tc high", `Q low ${flow}`, `Q high ${flow}`, "band"],
+      [
+        ["as entered", fmt(e.tcMin, 2), fmt(e.tcMin, 2), fmt(e.peak, 3), fmt(e.peak, 3), ""],
+        ...rows,
+      ],
+      new Set([1, 2, 3, 4]),
+    ),
+  );
+  return lines;
 }

@@ -42,6 +42,7 @@ describe("npm run calc", () => {
       "kirpich",
       "kerby",
       "faa",
+      "kerby-kirpich",
     ]);
     expect(result.governing.method).toBe("kinematic-wave");
     expect(result.caution).toMatch(/engineer of record/);
@@ -83,6 +84,28 @@ describe("npm run calc", () => {
     expect(run.stdout).toBe("");
     expect(run.stderr).toContain("invalid input");
     expect(run.stderr).toContain(`${path}:`);
+  });
+
+  it("with --uncertainty prints the band and the sensitivity, the same from the same seed", () => {
+    const args = [fixture("example-us.json"), "--uncertainty", "--draws", "400", "--seed", "5"];
+    const a = calc(...args);
+    const b = calc(...args);
+    expect(a.code).toBe(0);
+    const band = (JSON.parse(a.stdout) as { uncertainty: { monteCarlo: { draws: number } } })
+      .uncertainty.monteCarlo;
+    expect(band.draws).toBe(400);
+    expect(b.stdout).toBe(a.stdout);
+    const table = calc(fixture("example-si.json"), "--format", "table", "--uncertainty");
+    expect(table.stdout).toMatch(/governing Tc min: P10 [\d.]+, P50 [\d.]+, P90 [\d.]+/);
+    expect(table.stdout).toContain("Sensitivity");
+    expect(calc(fixture("example-us.json"), "--draws", "many").code).toBe(2);
+    // Four runs of the command line, each starting tsx: more than the default 5 s on a busy machine.
+  }, 60_000);
+
+  it("follows the sheet-flow cap rule: carried as shallow flow, refused, or warned", () => {
+    const warn = calc(fixture("sheet-past-cap.json"));
+    expect(warn.code).toBe(0);
+    expect(warn.stdout).toContain('"code": "sheet-past-cap"');
   });
 
   it("refuses a file that is not JSON, a missing file and a bad option", () => {

@@ -73,16 +73,16 @@ export const BAND_DEFAULTS = {
   seed: 1,
 } as const;
 
-/** The basis of each band, as the sheet and the exports state it. */
+/** The basis of each default band, as the sheet and the exports state it. */
 export const BAND_SOURCES = {
-  roughness: "±20 % (common practice; Chow 1959 Table 5-6 spreads n about this far)",
-  velocityK: "±20 % (common practice)",
-  slope: "±10 % (common practice)",
-  slopeTerrain: "±√2·σz/L from the terrain's vertical accuracy (derived)",
-  p2: "±10 % (common practice)",
-  idf: "±10 % (common practice)",
-  cn: "±5 CN (common practice)",
-  runoffC: "±10 % (common practice)",
+  roughness: "common practice; Chow (1959) Table 5-6 spreads n about this far",
+  velocityK: "common practice",
+  slope: "common practice",
+  slopeTerrain: "±√2·σz/L from the terrain's vertical accuracy, derived",
+  p2: "common practice",
+  idf: "common practice",
+  cn: "common practice",
+  runoffC: "common practice",
 } as const;
 
 /** Bands with defaults applied; the vertical accuracy in ft. */
