@@ -4,6 +4,7 @@
  */
 import { and, eq } from "drizzle-orm";
 import { Router } from "express";
+import { rulesUnitProblems } from "../../shared/hydrology/rules";
 import { designRulesBody } from "../../shared/schemas/design-rules";
 import {
   currentProject,
@@ -37,7 +38,15 @@ export function designRulesRouter({ db }: RouteDeps): Router {
 
   router.put(path, ...inProject, requirePermission("project-data:edit"), async (req, res) => {
     const body = validate(designRulesBody, req.body);
-    const projectId = currentProject(req).id;
+    const project = currentProject(req);
+    const projectId = project.id;
+    // K's plausible band depends on the project's unit system, which the body does not carry.
+    const unitProblems = rulesUnitProblems(body.rules, project.units === "si" ? "si" : "us");
+    if (unitProblems.length > 0) {
+      throw invalidInput(
+        Object.fromEntries(unitProblems.map((p) => [`rules.${p.path.join(".")}`, p.message])),
+      );
+    }
     if (body.rainfallTableId !== null) {
       const [table] = await db
         .select({ id: rainfallTables.id })

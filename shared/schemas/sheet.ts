@@ -51,6 +51,18 @@ export const sheetSegmentSchema = z.object({
 });
 export type SheetSegment = z.output<typeof sheetSegmentSchema>;
 
+const percentilesSchema = z.object({ p10: num, p50: num, p90: num });
+
+/** Sheet flow over several segments: the series rule used and the Tc the others give. */
+export const overlandSeriesSchema = z.object({
+  rule: z.enum(["overlandSeries", "sheetFlowSeries"]),
+  used: z.string(),
+  usedLabel: z.string(),
+  sheetSegments: z.number().int(),
+  alternatives: z.array(z.object({ option: z.string(), label: z.string(), totalMin: num })),
+});
+export type OverlandSeriesNote = z.output<typeof overlandSeriesSchema>;
+
 export const sheetMethodSchema = z.object({
   id: z.enum(METHOD_IDS),
   label: z.string(),
@@ -64,6 +76,10 @@ export const sheetMethodSchema = z.object({
   minimumApplied: z.boolean(),
   reason: z.string().nullable(),
   validity: z.object({ range: z.string(), outside: z.array(z.string()) }).nullable(),
+  /** Absent on sheets stored before the series rules; null with one sheet segment or none. */
+  overlandSeries: overlandSeriesSchema.nullable().optional(),
+  /** The Monte Carlo band of this method's Tc (min); absent on older sheets. */
+  band: percentilesSchema.extend({ draws: z.number().int() }).nullable().optional(),
 });
 export type SheetMethod = z.output<typeof sheetMethodSchema>;
 
@@ -74,6 +90,35 @@ export const sheetWarningSchema = z.object({
   method: z.enum(METHOD_IDS).optional(),
 });
 export type SheetWarning = z.output<typeof sheetWarningSchema>;
+
+const sensitivityPoint = z.object({ tcMin: maybe, peak: maybe });
+
+/**
+ * How sure the governing Tc and the peak flow are: the sensitivity view (each input group at
+ * the ends of its band) and the Monte Carlo band, in the sheet's units (peak flows).
+ */
+export const sheetUncertaintySchema = z.object({
+  sensitivity: z.object({
+    entered: sensitivityPoint,
+    bars: z.array(
+      z.object({
+        input: z.string(),
+        label: z.string(),
+        band: z.string(),
+        low: sensitivityPoint,
+        high: sensitivityPoint,
+      }),
+    ),
+  }),
+  monteCarlo: z.object({
+    draws: z.number().int(),
+    seed: z.number().int(),
+    distribution: z.string(),
+    governingTcMin: percentilesSchema.nullable(),
+    peak: percentilesSchema.nullable(),
+  }),
+});
+export type SheetUncertainty = z.output<typeof sheetUncertaintySchema>;
 
 export const pathPieceSchema = z.object({
   stationFromM: num,
@@ -127,6 +172,8 @@ export const travelTimeSheetSchema = z.object({
       durationMin: num,
       area: num,
       returnPeriodYears: num,
+      /** Q/(Cf·C·i·A) in the sheet's units; absent on older sheets (derive it from the rest). */
+      unitFactor: num.optional(),
     })
     .nullable(),
   figures: z.object({
@@ -150,6 +197,13 @@ export const travelTimeSheetSchema = z.object({
     })
     .nullable()
     .optional(),
+  /** Absent on sheets stored before it was kept; null when the methods did not run. */
+  uncertainty: sheetUncertaintySchema.nullable().optional(),
+  /**
+   * The engineering core's input exactly as computed, in the project's units: `npm run calc`
+   * reads it (docs/calc-format.md), so a checking engineer can run the numbers again.
+   */
+  calcInput: z.unknown().optional(),
   /** Warnings that concern no single segment (the segments carry their own too). */
   warnings: z.array(sheetWarningSchema),
   /** What keeps the methods from running at all; empty when they ran. */

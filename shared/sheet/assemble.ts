@@ -33,6 +33,11 @@ function unavailable(id: MethodId, reason: string): SheetMethod {
 function methodRow(result: ComputeResult, id: MethodId): SheetMethod {
   const m = result.methods[id];
   if (m.status === "unavailable") return { ...unavailable(id, m.reason), source: m.source };
+  const series =
+    (m.id === "kinematic-wave" || m.id === "nrcs-segmental") && "overlandSeries" in m
+      ? m.overlandSeries
+      : null;
+  const band = result.uncertainty?.monteCarlo.methods[id] ?? null;
   return {
     id,
     label: m.label,
@@ -46,15 +51,50 @@ function methodRow(result: ComputeResult, id: MethodId): SheetMethod {
     minimumApplied: m.minimumApplied,
     reason: null,
     validity: { range: m.validity.range, outside: [...m.validity.outside] },
+    overlandSeries: series && {
+      ...series,
+      alternatives: series.alternatives.map((a) => ({ ...a })),
+    },
+    ...(result.uncertainty !== undefined && { band: band && { ...band } }),
   };
 }
 
-/** Rows with times and warnings; the core's segment index is the row index. */
+/** The sensitivity view and Monte Carlo band of the governing Tc and peak flow. */
+function uncertaintyOf(result: ComputeResult): TravelTimeSheet["uncertainty"] {
+  const u = result.uncertainty;
+  if (u === undefined) return undefined;
+  const point = (p: { tcMin: number | null; peak: number | null }) => ({ ...p });
+  return {
+    sensitivity: {
+      entered: point(u.sensitivity.entered),
+      bars: u.sensitivity.bars.map((b) => ({
+        input: b.input,
+        label: b.label,
+        band: b.band,
+        low: point(b.low),
+        high: point(b.high),
+      })),
+    },
+    monteCarlo: {
+      draws: u.monteCarlo.draws,
+      seed: u.monteCarlo.seed,
+      distribution: u.monteCarlo.distribution,
+      governingTcMin: u.monteCarlo.governingTcMin && { ...u.monteCarlo.governingTcMin },
+      peak: u.monteCarlo.peak && { ...u.monteCarlo.peak },
+    },
+  };
+}
+
+/**
+ * Rows with times and warnings; the core's segment index is the row index. The lag method's
+ * per-segment figures are left out: each is a segment's lag alone and they do not add up to the
+ * method's Tc, so a column of them would invite a wrong total.
+ */
 function fillRows(rows: readonly SheetSegment[], result: ComputeResult): SheetSegment[] {
   const out = rows.map((r) => ({ ...r, timesMin: { ...r.timesMin }, warnings: [...r.warnings] }));
   for (const id of METHOD_IDS) {
     const m = result.methods[id];
-    if (m.status !== "ok") continue;
+    if (m.status !== "ok" || id === "nrcs-lag") continue;
     for (const s of m.segments) {
       const row = out[s.index];
       if (!row) continue;
@@ -86,6 +126,7 @@ export function assembleSheet(
   result: ComputeResult | null,
   problems: readonly string[],
   extraWarnings: readonly SheetWarning[] = [],
+  calcInput?: unknown,
 ): TravelTimeSheet {
   if (result === null) {
     const reason =
@@ -117,6 +158,8 @@ export function assembleSheet(
     },
     peakFlow: result.peakFlow && { ...result.peakFlow },
     kinematic: kinematicSolve(result),
+    uncertainty: uncertaintyOf(result) ?? null,
+    ...(calcInput !== undefined && { calcInput }),
     warnings: [
       ...extraWarnings,
       ...result.warnings

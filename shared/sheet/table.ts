@@ -4,6 +4,7 @@
  * row per segment, a totals row, one summary row per method and the governing Tc.
  */
 import { METHOD_IDS, type MethodId } from "../hydrology/method-ids";
+import { rationalFormula } from "../hydrology/rational";
 import type { SheetSegment, TravelTimeSheet } from "../schemas/sheet";
 
 export type Cell = string | number | null;
@@ -27,6 +28,10 @@ const METHOD_SHORT: Record<MethodId, string> = {
   faa: "FAA",
   "kerby-kirpich": "Kerby–Kirpich",
 };
+
+const PER_SEGMENT = METHOD_IDS.filter(
+  (id) => id === "velocity" || id === "kinematic-wave" || id === "nrcs-segmental",
+);
 
 export function sheetColumns(sheet: TravelTimeSheet): SheetColumn[] {
   const u = sheet.unitLabels;
@@ -99,7 +104,9 @@ export function sheetColumns(sheet: TravelTimeSheet): SheetColumn[] {
       format: "0.000",
       value: (r) => r.velocity,
     },
-    ...METHOD_IDS.map((id): SheetColumn => ({
+    // Methods that add segment times; the lag method's per-segment figures are not additive
+    // and the checks work on the whole path, so they have no column here.
+    ...PER_SEGMENT.map((id): SheetColumn => ({
       key: `time:${id}`,
       title: `Time, ${METHOD_SHORT[id]}`,
       unit: "min",
@@ -122,15 +129,80 @@ export interface SheetTable {
   readonly units: readonly string[];
   readonly rows: readonly Cell[][];
   readonly totals: readonly Cell[];
-  /** method label, status, Tc (min), Tc (h), validity note */
+  /** The heading of the method rows. */
+  readonly methodHead: readonly string[];
+  /** method label, status, Tc (min), Tc (h), P10, P50, P90 (min), notes */
   readonly methodRows: readonly Cell[][];
   readonly governing: readonly Cell[];
+  /** "How sure" rows: the Monte Carlo band and the sensitivity bars (empty on older sheets). */
+  readonly howSure: readonly Cell[][];
+}
+
+export const METHOD_HEAD = [
+  "Method",
+  "Status",
+  "Tc (min)",
+  "Tc (h)",
+  "P10 (min)",
+  "P50 (min)",
+  "P90 (min)",
+  "Notes",
+] as const;
+
+/** The Monte Carlo band and the tornado bars as rows of cells. */
+function howSureRows(sheet: TravelTimeSheet): Cell[][] {
+  const u = sheet.uncertainty;
+  if (!u) return [];
+  const flow = sheet.unitLabels.flow ?? "";
+  const mc = u.monteCarlo;
+  const band = (label: string, p: { p10: number; p50: number; p90: number } | null) => [
+    label,
+    p?.p10 ?? null,
+    p?.p50 ?? null,
+    p?.p90 ?? null,
+  ];
+  return [
+    [`How sure (Monte Carlo, ${mc.draws} draws, seed ${mc.seed})`, "P10", "P50", "P90"],
+    band("Governing Tc (min)", mc.governingTcMin),
+    band(`Peak flow (${flow})`, mc.peak),
+    [mc.distribution],
+    [],
+    [
+      "Sensitivity: input at the ends of its band",
+      "Band",
+      "Tc low (min)",
+      "Tc high (min)",
+      `Q low (${flow})`,
+      `Q high (${flow})`,
+    ],
+    ...u.sensitivity.bars.map((b) => [
+      b.label,
+      b.band,
+      b.low.tcMin,
+      b.high.tcMin,
+      b.low.peak,
+      b.high.peak,
+    ]),
+  ];
+}
+
+/** Where the series rule combined several sheet segments, and what the others give. */
+function seriesNote(m: TravelTimeSheet["methods"][number]): string | null {
+  const s = m.overlandSeries;
+  if (!s) return null;
+  const others = s.alternatives
+    .map((a) => `"${a.option}" would give ${a.totalMin.toFixed(2)} min`)
+    .join(", ");
+  return `sheet flow over ${s.sheetSegments} segments combined as "${s.used}" (${s.usedLabel}); ${others}`;
 }
 
 /** Minimum Tc applied, and where the case lies outside the method's range (with the range). */
 function methodNote(m: TravelTimeSheet["methods"][number]): string | null {
   const parts: string[] = [];
   if (m.minimumApplied) parts.push("minimum Tc applied");
+  if (m.scope === "overland") parts.push("overland part only; the minimum Tc is not applied");
+  const series = seriesNote(m);
+  if (series) parts.push(series);
   if (m.validity && m.validity.outside.length > 0) {
     parts.push(`outside its range (${m.validity.range}): ${m.validity.outside.join("; ")}`);
   }
@@ -161,6 +233,17 @@ export function sheetTable(sheet: TravelTimeSheet, projectName = sheet.project.n
         ? [["Up to date", "No: the flow path changed since; compute again"] as const]
         : []),
       ["Computed at", sheet.computedAt],
+      ...(sheet.peakFlow
+        ? [
+            [
+              "Peak flow (rational method)",
+              rationalFormula(sheet.peakFlow, {
+                intensity: sheet.unitLabels.intensity ?? "",
+                area: sheet.unitLabels.area ?? "",
+              }),
+            ] as const,
+          ]
+        : []),
       ["Caution", sheet.caution],
     ],
     columns,
@@ -168,15 +251,29 @@ export function sheetTable(sheet: TravelTimeSheet, projectName = sheet.project.n
     units: columns.map((c) => c.unit),
     rows: sheet.segments.map((r) => columns.map((c) => c.value(r))),
     totals,
+    methodHead: METHOD_HEAD,
     methodRows: sheet.methods.map((m) => [
       m.label,
       m.status,
       m.totalMin,
       m.totalHr,
+      m.band?.p10 ?? null,
+      m.band?.p50 ?? null,
+      m.band?.p90 ?? null,
       m.status === "ok" ? methodNote(m) : m.reason,
     ]),
     governing: g
-      ? ["Governing Tc", g.label, g.tcMin, g.tcHr, g.reason]
-      : ["Governing Tc", "none", null, null, sheet.problems.join(" ") || null],
+      ? [
+          "Governing Tc",
+          g.label,
+          g.tcMin,
+          g.tcHr,
+          sheet.uncertainty?.monteCarlo.governingTcMin?.p10 ?? null,
+          sheet.uncertainty?.monteCarlo.governingTcMin?.p50 ?? null,
+          sheet.uncertainty?.monteCarlo.governingTcMin?.p90 ?? null,
+          g.reason,
+        ]
+      : ["Governing Tc", "none", null, null, null, null, null, sheet.problems.join(" ") || null],
+    howSure: howSureRows(sheet),
   };
 }

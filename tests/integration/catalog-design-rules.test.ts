@@ -96,4 +96,35 @@ describe("Design rules", () => {
     expect(typo.status).toBe(422);
     expect(Object.keys(typo.body.error.fields)).toContain("rules");
   });
+
+  it("stores the new core rules and their bands, and refuses a K of the other unit system", async () => {
+    const projectId = await freshProject(t.db, team.id);
+    const rules = {
+      overlandSeries: "independent",
+      sheetFlowSeries: "weighted-n",
+      sheetFlowPastCap: "warn",
+      lagUsesArc: true,
+      rationalUsFactor: "1.0",
+      kirpichAdjustment: "paved-overland",
+      uncertainty: { roughnessPct: 30, draws: 500, seed: 9 },
+    };
+    const put = await engineer
+      .put(`/api/projects/${projectId}/design-rules`)
+      .send(body(0, { rules }));
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    expect((await engineer.get(`/api/projects/${projectId}/design-rules`)).body.rules).toEqual(
+      rules,
+    );
+    // The project is in SI units (freshProject): 0.94 is the US value of K.
+    const k = await engineer
+      .put(`/api/projects/${projectId}/design-rules`)
+      .send(body(1, { rules: { kinematicWaveK: 0.94 } }));
+    expect(k.status).toBe(422);
+    expect(k.body.error.fields["rules.kinematicWaveK"]).toMatch(/looks like a value for US units/);
+    const dup = await engineer
+      .put(`/api/projects/${projectId}/design-rules`)
+      .send(body(1, { rules: { arcByReturnPeriod: { "25": "III", "25.0": "I" } } }));
+    expect(dup.status).toBe(422);
+    expect(JSON.stringify(dup.body.error.fields)).toMatch(/same return period/);
+  });
 });

@@ -11,7 +11,7 @@ import {
   type PolygonRings,
   type ValuedPolygon,
 } from "../../shared/geo";
-import { METHOD_IDS } from "../../shared/hydrology";
+import { computeFromJson, METHOD_IDS } from "../../shared/hydrology";
 import type { TravelTimeSheet } from "../../shared/schemas/sheet";
 import { PATH, PLANE, UTM10_NAD83 } from "../fixtures/geo/scenario";
 import { startTestApp, type TestApp } from "../support/app";
@@ -71,6 +71,24 @@ describe("compute", () => {
     expect(sheet.figures.area).toBeGreaterThan(0);
     expect(sheet.profile.length).toBeGreaterThan(10);
     expect(JSON.stringify(sheet)).not.toMatch(/NaN|Infinity/);
+  });
+
+  it("carries each Tc's Monte Carlo band and the sensitivity bars, and the core's input", () => {
+    const u = sheet.uncertainty;
+    if (!u) throw new Error("no uncertainty on the sheet");
+    const g = u.monteCarlo.governingTcMin;
+    expect(
+      g && g.p10 <= (sheet.governing?.tcMin ?? 0) && (sheet.governing?.tcMin ?? 0) <= g.p90,
+    ).toBe(true);
+    expect(u.sensitivity.bars).toHaveLength(7);
+    for (const m of sheet.methods.filter((x) => x.status === "ok"))
+      expect(m.band?.draws).toBe(2000);
+    // The stored input runs again through the core and gives the sheet's numbers.
+    const again = computeFromJson(sheet.calcInput, { uncertainty: true });
+    expect(again.governing.tcMin).toBe(sheet.governing?.tcMin);
+    expect(again.uncertainty?.monteCarlo.governingTcMin).toEqual(g);
+    // The lag method's per-segment figures are not additive: no row carries them.
+    expect(sheet.segments.every((s) => s.timesMin["nrcs-lag"] === undefined)).toBe(true);
   });
 
   it("takes sheet flow to the 100 ft cap and channel flow from the user's break", () => {

@@ -45,6 +45,19 @@ describe("exports of the travel-time sheet", () => {
     expect(Number(totals[lengthCol])).toBe(sheet.totalLength);
     const governing = rows.find((r) => r[0] === "Governing Tc");
     expect(Number(governing?.[2])).toBe(sheet.governing?.tcMin);
+    // The Monte Carlo band beside each Tc, the how-sure block, and no lag column to add up.
+    const band = sheet.uncertainty?.monteCarlo.governingTcMin;
+    expect(Number(governing?.[4])).toBe(band?.p10);
+    expect(Number(governing?.[6])).toBe(band?.p90);
+    expect(
+      rows
+        .find((r) => r[0] === "Governing Tc (min)")
+        ?.slice(1, 4)
+        .map(Number),
+    ).toEqual([band?.p10, band?.p50, band?.p90]);
+    expect(rows.some((r) => r[0]?.startsWith("Sensitivity"))).toBe(true);
+    expect(rows[head]).not.toContain("Time, NRCS lag");
+    expect(rows.find((r) => r[0] === "Peak flow (rational method)")?.[1]).toMatch(/\/ 360 = /);
   });
 
   it("XLSX: numbers as numbers with number formats, the same values as the JSON sheet", async () => {

@@ -1,7 +1,8 @@
 /**
  * The travel-time sheet as CSV and as an XLSX workbook: a header block, column names with a
- * units row under them, one row per segment, a totals row, a row per method and the governing
- * Tc. In the workbook numbers stay numbers, with number formats per column.
+ * units row under them, one row per segment, a totals row, a row per method with its Monte Carlo
+ * band, the governing Tc, and how sure it is (band and sensitivity). In the workbook numbers stay
+ * numbers, with number formats per column.
  */
 import ExcelJS from "exceljs";
 import Papa from "papaparse";
@@ -23,9 +24,10 @@ export function sheetCsv(sheet: TravelTimeSheet): string {
     ...t.rows,
     [...t.totals],
     pad([]),
-    pad(["Method", "Status", "Tc (min)", "Tc (h)", "Notes"]),
+    pad([...t.methodHead]),
     ...t.methodRows.map(pad),
     pad([...t.governing]),
+    ...(t.howSure.length > 0 ? [pad([]), ...t.howSure.map(pad)] : []),
   ];
   return Papa.unparse(
     rows.map((r) => r.map((c) => (c === null ? "" : c))),
@@ -59,16 +61,26 @@ export async function sheetXlsx(sheet: TravelTimeSheet): Promise<Buffer> {
     if (c.format) col.numFmt = c.format;
   });
   ws.addRow([]);
-  const head = ws.addRow(["Method", "Status", "Tc (min)", "Tc (h)", "Notes"]);
+  const head = ws.addRow([...t.methodHead]);
   head.font = { bold: true };
-  for (const m of t.methodRows) {
-    const row = ws.addRow(m);
+  const minutes = (row: ExcelJS.Row) => {
     row.getCell(3).numFmt = "0.00";
     row.getCell(4).numFmt = "0.000";
-  }
+    for (const c of [5, 6, 7]) row.getCell(c).numFmt = "0.00";
+  };
+  for (const m of t.methodRows) minutes(ws.addRow(m));
   const g = ws.addRow([...t.governing]);
   g.font = { bold: true };
-  g.getCell(3).numFmt = "0.00";
-  g.getCell(4).numFmt = "0.000";
+  minutes(g);
+  if (t.howSure.length > 0) {
+    ws.addRow([]);
+    for (const cells of t.howSure) {
+      const row = ws.addRow(cells);
+      const first = String(cells[0] ?? "");
+      if (first.startsWith("How sure") || first.startsWith("Sensitivity"))
+        row.font = { bold: true };
+      for (let c = 2; c <= cells.length; c += 1) row.getCell(c).numFmt = "0.000";
+    }
+  }
   return Buffer.from(await book.xlsx.writeBuffer());
 }

@@ -11,7 +11,8 @@ import {
   type ComputeResult,
 } from "../../../shared/hydrology";
 import { UNIT_LABELS } from "../../../shared/hydrology/units";
-import type { TravelTimeSheet } from "../../../shared/schemas/sheet";
+import type { RulesInput } from "../../../shared/hydrology/rules";
+import type { SheetWarning, TravelTimeSheet } from "../../../shared/schemas/sheet";
 import { assembleSheet, rowProblems } from "../../../shared/sheet/assemble";
 import { buildRows } from "../../../shared/sheet/rows";
 import type { ProjectRow } from "../../auth/guards";
@@ -24,6 +25,22 @@ import { loadComputeData } from "./load";
 import { pathProfile } from "./path-profile";
 
 const lengthOut = (units: "us" | "si", m: number) => (units === "si" ? m : m / 0.3048);
+
+/**
+ * The Monte Carlo runs inside the compute request (about 20 µs a draw), so the server bounds
+ * its draws: a project asking for more gets this many and a note (the command line has no cap).
+ */
+export const SERVER_MAX_DRAWS = 5_000;
+
+function boundedDraws(rules: RulesInput, warnings: SheetWarning[]): RulesInput {
+  const draws = rules.uncertainty?.draws;
+  if (draws === undefined || draws <= SERVER_MAX_DRAWS) return rules;
+  warnings.push({
+    code: "monte-carlo-draws-capped",
+    message: `The design rules ask for ${draws} Monte Carlo draws; the sheet uses ${SERVER_MAX_DRAWS} (run npm run calc with the sheet's input for more).`,
+  });
+  return { ...rules, uncertainty: { ...rules.uncertainty, draws: SERVER_MAX_DRAWS } };
+}
 
 /** The project's terrain, or null with the reason when its file cannot be read. */
 async function openProjectTerrain(
@@ -132,11 +149,14 @@ export async function computeSheet(
       );
     }
     let result: ComputeResult | null = null;
+    let calcInput: unknown;
+    const extraWarnings: SheetWarning[] = [];
     if (built.segments && data.rainfall && problems.length === 0) {
-      const parsed = computeInputSchema.safeParse({
+      const rules = boundedDraws(data.rules.rules, extraWarnings);
+      calcInput = {
         units,
         returnPeriodYears: project.designReturnPeriodYears,
-        rules: data.rules.rules,
+        rules,
         rainfall: {
           ...(data.rainfall.p2_24h !== null && { p2_24h: data.rainfall.p2_24h }),
           idf: data.rainfall.idf,
@@ -153,14 +173,15 @@ export async function computeSheet(
         },
         segments: built.segments,
         title: `${project.name}: ${data.subcatchment.name} (${data.subcatchment.scenario})`,
-      });
+      };
+      const parsed = computeInputSchema.safeParse(calcInput);
       if (!parsed.success) {
         for (const issue of parsed.error.issues) {
           problems.push(`${issue.path.join(".")}: ${issue.message}`);
         }
       } else {
         try {
-          result = compute(parsed.data);
+          result = compute(parsed.data, { uncertainty: true });
         } catch (err) {
           if (!isHydrologyError(err)) throw err;
           problems.push(err.message);
@@ -193,6 +214,8 @@ export async function computeSheet(
       built.rows,
       result,
       problems,
+      extraWarnings,
+      result === null ? undefined : calcInput,
     );
   } finally {
     await terrain?.close();

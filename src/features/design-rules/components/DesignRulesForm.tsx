@@ -9,6 +9,7 @@ import { isApiError } from "../../../lib/api";
 import { fieldErrorsOf, type FieldErrors } from "../../../lib/form";
 import { type useSaveDesignRules } from "../api/save-design-rules";
 import { ArcByPeriod } from "./ArcByPeriod";
+import { CoreRules } from "./CoreRules";
 import { bodyOf, draftOf, K_PRESET_IDS, KINEMATIC_K_PRESETS, type Draft } from "./draft";
 import { CheckRule, ChoiceRule, NumberRule, RuleGroup } from "./fields";
 
@@ -144,10 +145,10 @@ export function DesignRulesForm({ save, units, saved, tables, mayEdit, onReload 
           value={draft.lagCn}
           onChange={set("lagCn")}
           options={[
-            { value: "path-weighted", label: "Length-weighted CN of the path's segments" },
             { value: "watershed", label: "Area-weighted CN of the subcatchment" },
+            { value: "path-weighted", label: "Length-weighted CN of the path's segments" },
           ]}
-          source="Default: length-weighted along the flow path."
+          source="Default: area-weighted over the subcatchment (TR-55 Worksheet 2 practice)."
         />
       </RuleGroup>
       <RuleGroup title="Curve numbers and soils">
@@ -169,7 +170,7 @@ export function DesignRulesForm({ save, units, saved, tables, mayEdit, onReload 
             { value: "chow", label: "Chow formulas" },
             { value: "hawkins", label: "Hawkins formulas" },
           ]}
-          source={`Default: table — ${ARC_METHOD_SOURCES.table}`}
+          source={`Default: table, row by row — ${ARC_METHOD_SOURCES.table}`}
         />
         <ArcByPeriod
           rows={draft.arcByPeriod}
@@ -237,6 +238,7 @@ export function DesignRulesForm({ save, units, saved, tables, mayEdit, onReload 
           source={`Default: 5 m${units === "us" ? " (16.4 ft)" : ""}. Elevations are sampled this far apart for the profile.`}
         />
       </RuleGroup>
+      <CoreRules draft={draft} set={set} errors={errors} mayEdit={mayEdit} units={units} />
       {stale ? (
         <div
           role="alert"

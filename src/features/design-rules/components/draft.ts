@@ -10,7 +10,9 @@ import {
   type SHEET_CAP_PRESETS,
   type GoverningChoice,
   type KinematicKPreset,
+  type RulesInput,
 } from "../../../../shared/hydrology/rules";
+import { BAND_DEFAULTS } from "../../../../shared/hydrology/uncertainty/bands";
 import {
   type DesignRules,
   type DesignRulesBody,
@@ -40,11 +42,33 @@ export interface Draft {
   allowIdfExtrapolation: boolean;
   lagCn: "path-weighted" | "watershed";
   manningConstant: "1.49" | "exact";
+  overlandSeries: NonNullable<RulesInput["overlandSeries"]>;
+  sheetFlowSeries: NonNullable<RulesInput["sheetFlowSeries"]>;
+  sheetFlowPastCap: NonNullable<RulesInput["sheetFlowPastCap"]>;
+  lagUsesArc: boolean;
+  rationalUsFactor: NonNullable<RulesInput["rationalUsFactor"]>;
+  kirpichAdjustment: NonNullable<RulesInput["kirpichAdjustment"]>;
+  /** Bands of the sensitivity view and the Monte Carlo, as the form shows them (text). */
+  bands: Record<BandKey, string>;
   dualHsg: DesignRules["dualHsg"];
   channelSlope: DesignRules["channelSlope"];
   rainfallTableId: string;
   profileSpacing: string;
 }
+
+export const BAND_KEYS = [
+  "roughnessPct",
+  "velocityKPct",
+  "slopePct",
+  "terrainVerticalAccuracy",
+  "p2Pct",
+  "idfPct",
+  "cnPoints",
+  "runoffCPct",
+  "draws",
+  "seed",
+] as const;
+export type BandKey = (typeof BAND_KEYS)[number];
 
 let nextKey = 1;
 export const arcRow = (years = "", arc: Arc = "III"): ArcRow => ({ key: nextKey++, years, arc });
@@ -72,6 +96,19 @@ export function draftOf(saved: DesignRules, units: "us" | "si"): Draft {
     allowIdfExtrapolation: r.allowIdfExtrapolation ?? RULE_DEFAULTS.allowIdfExtrapolation,
     lagCn: r.lagCn ?? RULE_DEFAULTS.lagCn,
     manningConstant: r.manningConstant ?? RULE_DEFAULTS.manningConstant,
+    overlandSeries: r.overlandSeries ?? RULE_DEFAULTS.overlandSeries,
+    sheetFlowSeries: r.sheetFlowSeries ?? RULE_DEFAULTS.sheetFlowSeries,
+    sheetFlowPastCap: r.sheetFlowPastCap ?? RULE_DEFAULTS.sheetFlowPastCap,
+    lagUsesArc: r.lagUsesArc ?? RULE_DEFAULTS.lagUsesArc,
+    rationalUsFactor: r.rationalUsFactor ?? RULE_DEFAULTS.rationalUsFactor,
+    kirpichAdjustment: r.kirpichAdjustment ?? RULE_DEFAULTS.kirpichAdjustment,
+    bands: Object.fromEntries(
+      BAND_KEYS.map((k) => {
+        const v =
+          r.uncertainty?.[k] ?? (k === "terrainVerticalAccuracy" ? undefined : BAND_DEFAULTS[k]);
+        return [k, v === undefined ? "" : text(v)];
+      }),
+    ) as Record<BandKey, string>,
     dualHsg: saved.dualHsg,
     channelSlope: saved.channelSlope,
     rainfallTableId: saved.rainfallTableId ?? "",
@@ -104,6 +141,19 @@ export function bodyOf(draft: Draft, units: "us" | "si", version: number): Desig
       allowIdfExtrapolation: draft.allowIdfExtrapolation,
       lagCn: draft.lagCn,
       manningConstant: draft.manningConstant,
+      overlandSeries: draft.overlandSeries,
+      sheetFlowSeries: draft.sheetFlowSeries,
+      sheetFlowPastCap: draft.sheetFlowPastCap,
+      lagUsesArc: draft.lagUsesArc,
+      rationalUsFactor: draft.rationalUsFactor,
+      kirpichAdjustment: draft.kirpichAdjustment,
+      // An empty vertical accuracy means "none": slopes then take the percentage band.
+      uncertainty: Object.fromEntries(
+        BAND_KEYS.filter((k) => draft.bands[k].trim() !== "").map((k) => [
+          k,
+          toNumber(draft.bands[k]),
+        ]),
+      ),
     },
     dualHsg: draft.dualHsg,
     channelSlope: draft.channelSlope,

@@ -1,6 +1,9 @@
 import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
 
-/** Every method's Tc side by side, the governing one marked, methods outside their range flagged. */
+/**
+ * Every method's Tc side by side with its Monte Carlo band, the governing one marked, methods
+ * outside their range flagged.
+ */
 export function MethodTotals({ sheet }: { sheet: TravelTimeSheet }) {
   const governing = sheet.governing?.method;
   return (
@@ -15,6 +18,9 @@ export function MethodTotals({ sheet }: { sheet: TravelTimeSheet }) {
           </th>
           <th scope="col" className="py-1 pr-2 text-right font-semibold">
             Tc (h)
+          </th>
+          <th scope="col" className="py-1 pr-2 text-right font-semibold">
+            P10–P90 (min)
           </th>
           <th scope="col" className="py-1 font-semibold">
             Range and notes
@@ -45,6 +51,9 @@ export function MethodTotals({ sheet }: { sheet: TravelTimeSheet }) {
               <td className="py-1 pr-2 text-right font-mono">
                 {m.totalHr === null ? "—" : m.totalHr.toFixed(3)}
               </td>
+              <td className="py-1 pr-2 text-right font-mono whitespace-nowrap" data-band={m.id}>
+                {m.band ? `${m.band.p10.toFixed(1)}–${m.band.p90.toFixed(1)}` : "—"}
+              </td>
               <td className="py-1 text-ink-700">
                 {m.status === "unavailable" ? (
                   <span className="text-ink-500">Not computed: {m.reason}</span>
@@ -56,6 +65,11 @@ export function MethodTotals({ sheet }: { sheet: TravelTimeSheet }) {
                   <span className="text-ink-500">{m.validity?.range ?? ""}</span>
                 )}
                 {m.minimumApplied && <span className="ml-1 text-ink-500">minimum Tc applied</span>}
+                {m.status === "ok" && m.scope === "overland" && (
+                  <span className="ml-1 text-ink-500">
+                    overland part only; no minimum Tc applied
+                  </span>
+                )}
               </td>
             </tr>
           );

@@ -1,3 +1,4 @@
+import { rationalFormula } from "../../../../shared/hydrology/rational";
 import type { TravelTimeSheet } from "../../../../shared/schemas/sheet";
 
 interface Props {
@@ -63,6 +64,14 @@ export function SheetFigures({ sheet, onReverse, busy }: Props) {
           </div>
         )}
       </dl>
+      {peakFlow && (
+        <p className="mt-0.5 font-mono text-ink-700" data-testid="rational-formula">
+          {rationalFormula(peakFlow, {
+            intensity: unitLabels.intensity ?? "",
+            area: unitLabels.area ?? "",
+          })}
+        </p>
+      )}
     </div>
   );
 }

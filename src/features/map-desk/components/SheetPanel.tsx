@@ -12,7 +12,9 @@ import { sheetInUnits } from "../lib/sheet-units";
 import type { useDeskEdits } from "../lib/use-desk-edits";
 import type { usePathAutosave } from "../lib/use-path-autosave";
 import { LivePreview } from "./LivePreview";
+import { HowSure } from "./HowSure";
 import { MethodTotals } from "./MethodTotals";
+import { OverlandSeriesNote } from "./OverlandSeriesNote";
 import { SegmentTable } from "./SegmentTable";
 import { SheetFigures } from "./SheetFigures";
 
@@ -147,7 +149,9 @@ export function SheetPanel(props: Props) {
             ))}
           </ul>
         )}
+        {shown && <OverlandSeriesNote sheet={shown} />}
         {shown && <MethodTotals sheet={shown} />}
+        {shown && <HowSure sheet={shown} />}
         <h3 className="mt-3 mb-1 text-sm font-semibold text-ink-800">Segments</h3>
         <div
           className="min-h-40 overflow-x-auto rounded border border-ink-200"

@@ -40,6 +40,16 @@ function converters(from: UnitSystem, to: UnitSystem): Converters {
 
 const maybe = (v: number | null, f: (x: number) => number) => (v === null ? null : f(v));
 
+const flowPoint = (p: { tcMin: number | null; peak: number | null }, c: Converters) => ({
+  tcMin: p.tcMin,
+  peak: maybe(p.peak, c.flow),
+});
+
+function withoutUnitFactor<T extends { unitFactor?: number }>(p: T): Omit<T, "unitFactor"> {
+  const { unitFactor: _dropped, ...rest } = p;
+  return rest;
+}
+
 export function sheetInUnits(sheet: TravelTimeSheet, to: UnitSystem): TravelTimeSheet {
   if (sheet.units === to) return sheet;
   const c = converters(sheet.units, to);
@@ -65,14 +75,35 @@ export function sheetInUnits(sheet: TravelTimeSheet, to: UnitSystem): TravelTime
       elevationDown: maybe(s.elevationDown, len),
       velocity: maybe(s.velocity, len),
     })),
+    // unitFactor is dropped: the printed formula derives it from the converted figures.
     peakFlow: sheet.peakFlow && {
-      ...sheet.peakFlow,
+      ...withoutUnitFactor(sheet.peakFlow),
       value: c.flow(sheet.peakFlow.value),
       unit: UNIT_LABELS[to].flow,
       area: c.area(sheet.peakFlow.area),
       intensity: c.depth(sheet.peakFlow.intensity),
     },
     figures: { ...sheet.figures, area: maybe(sheet.figures.area, c.area) },
+    // Peak flows of the band and the sensitivity bars convert as flows; times do not.
+    uncertainty: sheet.uncertainty && {
+      ...sheet.uncertainty,
+      sensitivity: {
+        entered: flowPoint(sheet.uncertainty.sensitivity.entered, c),
+        bars: sheet.uncertainty.sensitivity.bars.map((b) => ({
+          ...b,
+          low: flowPoint(b.low, c),
+          high: flowPoint(b.high, c),
+        })),
+      },
+      monteCarlo: {
+        ...sheet.uncertainty.monteCarlo,
+        peak: sheet.uncertainty.monteCarlo.peak && {
+          p10: c.flow(sheet.uncertainty.monteCarlo.peak.p10),
+          p50: c.flow(sheet.uncertainty.monteCarlo.peak.p50),
+          p90: c.flow(sheet.uncertainty.monteCarlo.peak.p90),
+        },
+      },
+    },
     // Intensities convert as depths per hour.
     kinematic: sheet.kinematic && {
       ...sheet.kinematic,
