@@ -212,12 +212,21 @@ function monteCarlo(model: KernelModel): UncertaintyResult["monteCarlo"] {
   };
 }
 
-/** The sensitivity view and the Monte Carlo band of a case. */
-export function uncertainty(kase: InternalCase, out: OutputUnits): UncertaintyResult {
+function modelOf(kase: InternalCase, out: OutputUnits): KernelModel {
   const curve = intensityCurve(kase.idf, kase.returnPeriodYears, {
     allowExtrapolation: kase.rules.allowIdfExtrapolation,
   });
-  const model = kernelModel(kase, out, curve);
+  return kernelModel(kase, out, curve);
+}
+
+/** The sensitivity view alone (the bench times it; the sheet takes it with the band). */
+export function sensitivityView(kase: InternalCase, out: OutputUnits) {
+  return sensitivity(modelOf(kase, out));
+}
+
+/** The sensitivity view and the Monte Carlo band of a case. */
+export function uncertainty(kase: InternalCase, out: OutputUnits): UncertaintyResult {
+  const model = modelOf(kase, out);
   return {
     bands: INPUT_GROUPS.map((input) => ({
       input,
