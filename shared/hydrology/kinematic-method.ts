@@ -37,6 +37,7 @@ export function solveOverland(
   coefficient: number,
   curve: IntensityCurve,
   minTcMin: number,
+  record = true,
 ): KinematicSolution {
   const range = curve.durationRangeMin;
   const start =
@@ -48,6 +49,7 @@ export function solveOverland(
     coefficient,
     intensityAt: (t) => curve.at(Math.max(t, minTcMin)),
     startMin: start,
+    record,
   });
 }
 

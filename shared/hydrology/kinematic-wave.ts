@@ -70,6 +70,8 @@ export interface KinematicSolveOptions {
   readonly startMin?: number;
   readonly toleranceMin?: number;
   readonly maxIterations?: number;
+  /** False skips keeping the iterates (the Monte Carlo solves thousands of times). */
+  readonly record?: boolean;
 }
 
 export const KINEMATIC_TOLERANCE_MIN = 1e-4;
@@ -83,14 +85,15 @@ export function solveKinematicWave(options: KinematicSolveOptions): KinematicSol
     return { tcMin: options.coefficient / Math.pow(i, 0.4), intensityInPerHr: i };
   };
   const iterations: KinematicIterate[] = [];
+  const record = options.record ?? true;
   let t = options.startMin ?? 10;
   for (let k = 0; k < maxIterations; k += 1) {
     const step = f(t);
-    iterations.push({ tcMin: t, intensityInPerHr: step.intensityInPerHr });
+    if (record) iterations.push({ tcMin: t, intensityInPerHr: step.intensityInPerHr });
     if (!Number.isFinite(step.tcMin) || step.tcMin <= 0) break;
     if (Math.abs(step.tcMin - t) < tol) {
       const last = f(step.tcMin);
-      iterations.push({ tcMin: step.tcMin, intensityInPerHr: last.intensityInPerHr });
+      if (record) iterations.push({ tcMin: step.tcMin, intensityInPerHr: last.intensityInPerHr });
       return {
         tcMin: step.tcMin,
         intensityInPerHr: last.intensityInPerHr,

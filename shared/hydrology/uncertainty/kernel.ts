@@ -159,7 +159,7 @@ export function evaluate(
     const c = kinematicTerms(planes, rules.overlandSeries).reduce((a, b) => a + b, 0);
     try {
       const coefficient = rules.kinematicK.us * c;
-      const solution = solveOverland(coefficient, curve, minTc);
+      const solution = solveOverland(coefficient, curve, minTc, false);
       // As compute() reports it: the rows' sum at the solved intensity.
       const overland = coefficient / Math.pow(solution.intensityInPerHr, 0.4);
       whole("kinematic-wave", overland + concentratedMin);
