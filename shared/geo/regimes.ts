@@ -93,8 +93,8 @@ export interface SheetEndInput {
 
 /**
  * The sheet break: the user's station when given, else the design rule's cap, never past the
- * outlet. A user's break longer than the cap is kept: the engineering core computes it and
- * warns that it exceeds the rule.
+ * outlet. A user's break longer than the cap is kept: the engineering core then treats the
+ * sheet flow past the cap as rules.sheetFlowPastCap says (shallow flow by default, with a note).
  */
 export function sheetEndStationM(input: SheetEndInput): SheetEnd {
   const clamp = (v: number) => Math.min(Math.max(v, 0), Math.max(input.totalM, 0));

@@ -198,7 +198,36 @@ describe("sheet assembly", () => {
     const outside = sheet.methods.find((m) => (m.validity?.outside.length ?? 0) > 0);
     expect(outside, "a 90 m path on a tiny site lies outside some method's range").toBeDefined();
     const row = sheetTable(sheet).methodRows.find((r) => r[0] === outside?.label);
-    expect(row?.[4]).toContain(`outside its range (${outside?.validity?.range})`);
+    // The notes column follows Tc (min), Tc (h) and the P10, P50, P90 of the band.
+    expect(row?.[7]).toContain(`outside its range (${outside?.validity?.range})`);
+  });
+
+  it("carries each method's band and the how-sure rows into the table; no lag column", () => {
+    const input = parseComputeInput({
+      units: "si",
+      returnPeriodYears: 10,
+      rainfall: {
+        p2_24h: 75,
+        idf: { durationsMin: [5, 60], returnPeriodsYears: [10], intensity: [[150], [45]] },
+      },
+      segments: built.segments,
+    });
+    const banded = assembleSheet(frame, built.rows, compute(input, { uncertainty: true }), []);
+    const table = sheetTable(banded);
+    const segmental = banded.methods.find((m) => m.id === "nrcs-segmental");
+    const row = table.methodRows.find((r) => r[0] === segmental?.label);
+    expect(row?.slice(4, 7)).toEqual([
+      segmental?.band?.p10,
+      segmental?.band?.p50,
+      segmental?.band?.p90,
+    ]);
+    expect(table.howSure.find((r) => r[0] === "Governing Tc (min)")?.slice(1)).toEqual([
+      banded.uncertainty?.monteCarlo.governingTcMin?.p10,
+      banded.uncertainty?.monteCarlo.governingTcMin?.p50,
+      banded.uncertainty?.monteCarlo.governingTcMin?.p90,
+    ]);
+    expect(table.columns.map((c) => c.key)).not.toContain("time:nrcs-lag");
+    expect(banded.segments.every((r) => r.timesMin["nrcs-lag"] === undefined)).toBe(true);
   });
 
   it("reports every method unavailable, with the reason, when a row blocks", () => {

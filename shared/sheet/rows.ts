@@ -188,11 +188,15 @@ export function buildRows(sources: readonly RowSource[], ctx: RowContext): Built
       ...(cls && { surface: cls.key }),
     };
     if (src.regime === "sheet") {
+      // Sheet flow past the cap (a break set beyond it) is carried as shallow flow with the
+      // class's shallow-flow k, as the regime cut gives the rows after the cap.
+      const shallow = v?.shallowKFtPerS;
       segments.push({
         regime: "sheet",
         ...common,
         n: n ?? 0,
         ...(k !== null && { k }),
+        ...(shallow && { shallowK: kOut(ctx.units, shallow.value) }),
         ...(kerbyN !== null && { kerbyN }),
       });
     } else if (src.regime === "shallow") {

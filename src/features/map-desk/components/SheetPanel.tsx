@@ -192,9 +192,12 @@ export function SheetPanel(props: Props) {
         </div>
         {shown?.warnings.length ? (
           <ul className="mt-2 space-y-0.5 text-xs text-caution-800">
-            {shown.warnings.map((w) => (
-              <li key={`${w.code}-${w.message}`}>⚠ {w.message}</li>
-            ))}
+            {/* The multi-surface note above says it in full. */}
+            {shown.warnings
+              .filter((w) => w.code !== "sheet-multi-surface")
+              .map((w) => (
+                <li key={`${w.code}-${w.message}`}>⚠ {w.message}</li>
+              ))}
           </ul>
         ) : null}
         {shown && (
