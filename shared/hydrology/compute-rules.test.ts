@@ -75,6 +75,33 @@ describe("splitting a plane never changes its time (closed form: the uncut plane
   });
 });
 
+describe("the four-surface worked case through compute(), i = 60/(t+10)^0.8 in/h (derived)", () => {
+  // n 0.40, 0.13, 0.15, 0.012 over 30, 25, 20, 25 ft; slopes 0.02, 0.03, 0.015, 0.01; K 0.938.
+  // Expected values from an independent fixed-point iteration of the two closed forms
+  // (overland-series.ts header); 1e-4 relative.
+  const input = (overlandSeries: string): CaseJson => ({
+    units: "us",
+    returnPeriodYears: 10,
+    rules: { minTcMin: 0, overlandSeries, kinematicWaveK: "theory-1.49" },
+    rainfall: { idf: { formula: { "10": { a: 60, b: 10, c: 0.8 } } } },
+    segments: (
+      [
+        [0.4, 30, 0.02],
+        [0.13, 25, 0.03],
+        [0.15, 20, 0.015],
+        [0.012, 25, 0.01],
+      ] as const
+    ).map(([n, length, slope]) => ({ regime: "sheet", n, length, slope })),
+  });
+  it.each([
+    ["cascade", 9.6843],
+    ["independent", 14.7184],
+  ] as const)("%s: %f min", (rule, expected) => {
+    const kw = ok(computeFromJson(input(rule)), "kinematic-wave");
+    expect(Math.abs(kw.computedMin - expected) / expected).toBeLessThan(1e-4);
+  });
+});
+
 describe("sheet flow past the cap (rules.sheetFlowPastCap)", () => {
   const long = () => plane([], { sheetFlowMaxLength: 60 });
   it('"shallow" (default): the excess takes V = k·s^0.5, on the same row', () => {

@@ -1,5 +1,6 @@
 import { useState, type FormEvent } from "react";
 import { ARC_METHOD_SOURCES } from "../../../../shared/hydrology/arc";
+import { kPresetSourceNote } from "../../../../shared/hydrology/rules-k";
 import { METHOD_LABELS, METHOD_IDS } from "../../../../shared/hydrology/method-ids";
 import { designRulesBody, type DesignRules } from "../../../../shared/schemas/design-rules";
 import { type RainfallTable } from "../../../../shared/schemas/rainfall";
@@ -112,11 +113,11 @@ export function DesignRulesForm({ save, units, saved, tables, mayEdit, onReload 
           options={[
             ...K_PRESET_IDS.map((id) => ({
               value: id,
-              label: `${KINEMATIC_K_PRESETS[id].value} (${KINEMATIC_K_PRESETS[id].units === "us" ? "US" : "SI"}) — ${KINEMATIC_K_PRESETS[id].source}`,
+              label: `${KINEMATIC_K_PRESETS[id].value} (${KINEMATIC_K_PRESETS[id].units === "us" ? "US" : "SI"}) — ${kPresetSourceNote(id)}`,
             })),
             { value: "number", label: "A number of your own" },
           ]}
-          source="Default: 0.938, the kinematic-wave solution with Manning 1.49 (derived). US: L ft, i in/h; SI: L m, i mm/h."
+          source="Default: 0.938, derived from the kinematic-wave solution with Manning 1.49 (HEC-22 prints 0.933). US: L ft, i in/h; SI: L m, i mm/h; a value far from the system's own is refused."
         />
         {kNumber && (
           <NumberRule
