@@ -1,6 +1,6 @@
 /**
  * Design rules: the choices a reviewing agency makes, each with a documented default
- * (docs/decisions/ records why the defaults are what they are).
+ * (docs/decisions/010-engineering-core-defaults.md records why the defaults are what they are).
  *
  *   minTcMin              5 min (common practice; TR-55 uses 0.1 h = 6 min [from memory])
  *   sheetFlowMaxLength    "100ft" (NEH 630 Ch 15, 2010) | "300ft" (TR-55 1986) |
