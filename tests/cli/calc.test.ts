@@ -115,5 +115,6 @@ describe("npm run calc", () => {
     const bad = calc(fixture("example-us.json"), "--format", "xml");
     expect(bad.code).toBe(2);
     expect(bad.stderr).toMatch(/--format must be json or table/);
-  });
+    // Four runs of the command line, each starting tsx.
+  }, 60_000);
 });
