@@ -213,7 +213,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     clientDist: e.CLIENT_DIST,
-    outboxEnabled: e.NODE_ENV !== "production",
+    // Only while mail goes to the local fake server: with a real SMTP server there is nothing
+    // to show, and production never exposes stored mail.
+    outboxEnabled: e.NODE_ENV !== "production" && !e.SMTP_HOST,
     rateLimits: {
       windowMs: e.RATE_LIMIT_WINDOW_MINUTES * 60_000,
       signInPerAccount: e.SIGN_IN_LIMIT_PER_ACCOUNT,

@@ -33,7 +33,8 @@ export const PERMISSIONS = {
   "project:create": ["owner", "admin", "engineer"],
   "project:edit": ["owner", "admin", "engineer"],
   "project:delete": MANAGERS,
-  "outbox:read": MANAGERS,
+  // The local Outbox shows everyone their own mail; managers also see their team's invitations.
+  "outbox:read-team-mail": MANAGERS,
   // Geodata: GIS staff bring layers; engineers own geometry, rules and computing.
   "layer:edit": ["owner", "admin", "gis"],
   "catalog:edit": MANAGERS,

@@ -78,6 +78,16 @@ export async function bench(args) {
   return result.code;
 }
 
+/** npm run outbox: the local mail server's messages, for whoever runs this machine. */
+export async function outbox(args) {
+  requireFile("scripts/outbox.ts", "npm run outbox");
+  const { databaseUrl } = await prepare({ command: "outbox", database: "rillmark" });
+  const { done } = spawnChild(binPath("tsx"), ["scripts/outbox.ts", ...args], {
+    env: serverEnv(databaseUrl),
+  });
+  return (await done).code;
+}
+
 /**
  * db [name]: start the cluster (if needed), make sure the database exists, print its URL; the
  * server keeps running. db stop: stop it unless another Rillmark command still uses it.

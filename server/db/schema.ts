@@ -130,11 +130,16 @@ export const projects = pgTable(
   ],
 );
 
-/** Mail caught by the local fake SMTP server (development and tests only). */
+/**
+ * Mail caught by the local fake SMTP server (development and tests only). `teamId` is the team a
+ * message was sent for (invitations); personal mail (resets, confirmations) has none and is
+ * shown only to its recipient.
+ */
 export const outboxMessages = pgTable(
   "outbox_messages",
   {
     id: id(),
+    teamId: uuid("team_id").references(() => teams.id, { onDelete: "set null" }),
     to: text("to").notNull(),
     from: text("from").notNull(),
     subject: text("subject").notNull(),
@@ -143,7 +148,7 @@ export const outboxMessages = pgTable(
     raw: text("raw").notNull(),
     receivedAt: at("received_at").notNull().defaultNow(),
   },
-  (t) => [index().on(t.to), index().on(t.receivedAt)],
+  (t) => [index().on(t.to), index().on(t.receivedAt), index().on(t.teamId)],
 );
 
 /** One row per seed that has run, so a seed never runs twice and never overwrites edits. */

@@ -1,10 +1,12 @@
 import { createHash, timingSafeEqual } from "node:crypto";
 import type { AddressInfo } from "node:net";
 import type { Readable } from "node:stream";
+import { idSchema } from "../../shared/schemas/common";
 import { simpleParser, type AddressObject } from "mailparser";
 import { SMTPServer } from "smtp-server";
 import type { Db } from "../db/client";
 import { outboxMessages } from "../db/schema";
+import { TEAM_HEADER } from "./mailer";
 
 export interface SmtpCredentials {
   user: string;
@@ -23,6 +25,7 @@ export interface FakeSmtp {
 }
 
 const MAX_MESSAGE_BYTES = 10 * 1024 * 1024;
+const isUuid = (value: string) => idSchema.safeParse(value).success;
 
 async function readAll(stream: Readable): Promise<Buffer> {
   const chunks: Buffer[] = [];
@@ -72,10 +75,13 @@ export async function startFakeSmtp(
           throw Object.assign(new Error("Message too large"), { responseCode: 552 });
         }
         const parsed = await simpleParser(raw);
+        const team = parsed.headers.get(TEAM_HEADER.toLowerCase());
         // The envelope says who the message was actually delivered to; headers can differ.
         const to = session.envelope.rcptTo.map((r) => r.address.toLowerCase()).join(", ");
         const mailFrom = session.envelope.mailFrom;
         await db.insert(outboxMessages).values({
+          // Anything but a well-formed id is no team: the message stays personal.
+          teamId: typeof team === "string" && isUuid(team.trim()) ? team.trim() : null,
           to: to || addressText(parsed.to),
           from: addressText(parsed.from) || (mailFrom ? mailFrom.address : ""),
           subject: parsed.subject ?? "",

@@ -2,8 +2,16 @@ import nodemailer from "nodemailer";
 import type { Config } from "../config";
 import type { MailContent } from "./templates";
 
+/** The header naming the team a message is sent for; the local Outbox files mail by it. */
+export const TEAM_HEADER = "X-Rillmark-Team";
+
+export interface SendOptions {
+  /** The team the message is sent for (an invitation); personal mail has none. */
+  teamId?: string;
+}
+
 export interface Mailer {
-  send(to: string, content: MailContent): Promise<void>;
+  send(to: string, content: MailContent, options?: SendOptions): Promise<void>;
   /** Waits for messages still being sent (a reset link must not be lost on shutdown). */
   close(): Promise<void>;
 }
@@ -48,8 +56,9 @@ export function createMailer(target: SmtpTarget, from: string): Mailer {
   });
   const inFlight = new Set<Promise<unknown>>();
   return {
-    async send(to, content) {
-      const sending = transport.sendMail({ from, to, ...content });
+    async send(to, content, options = {}) {
+      const headers = options.teamId ? { [TEAM_HEADER]: options.teamId } : undefined;
+      const sending = transport.sendMail({ from, to, ...content, headers });
       inFlight.add(sending);
       try {
         await sending;

@@ -201,7 +201,7 @@ export function teamInvitationsRouter({ db, config, mailer }: RouteDeps): Router
         role: body.role,
       });
       // Sent inside the transaction: if the mail server refuses it, no dead invitation remains.
-      await mailer.send(body.email, mail).catch((err: unknown) => {
+      await mailer.send(body.email, mail, { teamId: team.teamId }).catch((err: unknown) => {
         console.error("Invitation mail failed:", err instanceof Error ? err.message : err);
         throw new HttpError(
           502,

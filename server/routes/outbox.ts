@@ -1,9 +1,9 @@
-import { and, desc, eq, inArray } from "drizzle-orm";
-import { Router, type RequestHandler } from "express";
+import { and, desc, eq, inArray, or, type SQL } from "drizzle-orm";
+import { Router } from "express";
 import { PERMISSIONS } from "../../shared/roles";
 import { idSchema } from "../../shared/schemas/common";
 import type { OutboxMessage, OutboxMessageSummary } from "../../shared/schemas/outbox";
-import { currentUser, requireUser } from "../auth/guards";
+import { currentUser, requireUser, type AuthUser } from "../auth/guards";
 import type { Db } from "../db/client";
 import { memberships, outboxMessages } from "../db/schema";
 import { notFound } from "../http/errors";
@@ -12,33 +12,37 @@ import type { RouteDeps } from "./deps";
 
 const LIST_LIMIT = 200;
 
-/** The Outbox exists only outside production, and only for owners and admins of some team. */
-function outboxReader(db: Db): RequestHandler {
-  return async (req, _res, next) => {
-    const [row] = await db
-      .select({ id: memberships.id })
-      .from(memberships)
-      .where(
-        and(
-          eq(memberships.userId, currentUser(req).id),
-          inArray(memberships.role, [...PERMISSIONS["outbox:read"]]),
-        ),
-      )
-      .limit(1);
-    if (!row) throw notFound("The outbox");
-    next();
-  };
+/**
+ * What a reader may see, as a real mailbox would allow: mail addressed to them, and mail sent
+ * for a team they manage (its invitations). Personal mail to anyone else (a reset link, an
+ * e-mail confirmation) is never shown, whoever asks.
+ */
+function visibleTo(db: Db, user: AuthUser): SQL | undefined {
+  const managedTeams = db
+    .select({ teamId: memberships.teamId })
+    .from(memberships)
+    .where(
+      and(
+        eq(memberships.userId, user.id),
+        inArray(memberships.role, [...PERMISSIONS["outbox:read-team-mail"]]),
+      ),
+    );
+  return or(
+    eq(outboxMessages.to, user.email.toLowerCase()),
+    inArray(outboxMessages.teamId, managedTeams),
+  );
 }
 
+/** The local Outbox: only while development mail is in use (config.outboxEnabled). */
 export function outboxRouter({ db, config }: RouteDeps): Router {
   const router = Router();
   router.use("/outbox", (_req, _res, next) => {
     if (!config.outboxEnabled) throw notFound("The outbox");
     next();
   });
-  router.use("/outbox", requireUser(db), outboxReader(db));
+  router.use("/outbox", requireUser(db));
 
-  router.get("/outbox", async (_req, res) => {
+  router.get("/outbox", async (req, res) => {
     const rows = await db
       .select({
         id: outboxMessages.id,
@@ -48,6 +52,7 @@ export function outboxRouter({ db, config }: RouteDeps): Router {
         receivedAt: outboxMessages.receivedAt,
       })
       .from(outboxMessages)
+      .where(visibleTo(db, currentUser(req)))
       .orderBy(desc(outboxMessages.receivedAt), desc(outboxMessages.id))
       .limit(LIST_LIMIT);
     const list: OutboxMessageSummary[] = rows.map((r) => ({
@@ -59,7 +64,10 @@ export function outboxRouter({ db, config }: RouteDeps): Router {
 
   router.get("/outbox/:id", async (req, res) => {
     const id = validateParam(idSchema, req.params.id, "This message");
-    const [row] = await db.select().from(outboxMessages).where(eq(outboxMessages.id, id));
+    const [row] = await db
+      .select()
+      .from(outboxMessages)
+      .where(and(eq(outboxMessages.id, id), visibleTo(db, currentUser(req))));
     if (!row) throw notFound("This message");
     const message: OutboxMessage = {
       id: row.id,

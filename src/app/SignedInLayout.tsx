@@ -1,6 +1,5 @@
 import { useEffect } from "react";
 import { Navigate, Outlet, useLocation, useNavigate, useParams } from "react-router-dom";
-import { can } from "../../shared/roles";
 import { AppShell } from "../components/AppShell";
 import { useSignOut } from "../features/auth/api/sign-out";
 import { useProject } from "../features/projects/api/get-project";
@@ -39,7 +38,8 @@ export function SignedInLayout() {
     return <Navigate to={here === "/" ? "/sign-in" : signInPath(here)} replace />;
   }
 
-  const showOutbox = config.outboxEnabled && memberships.some((m) => can(m.role, "outbox:read"));
+  // Everyone has their own mail there; managers also their team's invitations.
+  const showOutbox = config.outboxEnabled;
   const needsTeam = memberships.length === 0 && location.pathname !== "/account";
 
   return (

@@ -26,6 +26,12 @@ describe("configuration", () => {
     expect(resolvePublicBaseUrl(config, config.port)).toBe("http://127.0.0.1:5180");
   });
 
+  it("turns the Outbox off once a real mail server is configured", () => {
+    expect(loadConfig({ DATABASE_URL: DB, SMTP_HOST: "mail.example.test" }).outboxEnabled).toBe(
+      false,
+    );
+  });
+
   it("documents every variable it reads in .env.example", () => {
     const example = readFileSync(new URL("../../.env.example", import.meta.url), "utf8");
     const documented = [...example.matchAll(/^#? ?([A-Z][A-Z0-9_]*)=/gm)].map((m) => m[1]);

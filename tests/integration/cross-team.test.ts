@@ -23,7 +23,7 @@ beforeAll(async () => {
     db: t.db,
     team,
     projectId: await freshProject(t.db, team.id),
-    outboxId: await outboxFixture(t.db),
+    outboxId: await outboxFixture(t.db, team.id),
   };
   // The other team's owner: the most powerful role there, and still nobody in team A.
   outsider = t.agent();
@@ -56,6 +56,7 @@ describe("another team's user", () => {
         "GET /api/layers/:layerId/features",
         "GET /api/layers/:layerId/fields/:field/values",
         "PUT /api/layers/:layerId/mapping",
+        "GET /api/outbox/:id",
         ...GEODATA_ROUTE_CASES.map((c) => `${c.method.toUpperCase()} ${c.route}`),
         ...MAP_ROUTE_CASES.filter((c) => c.teamScoped).map(
           (c) => `${c.method.toUpperCase()} ${c.route}`,

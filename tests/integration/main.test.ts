@@ -43,17 +43,17 @@ describe("startRillmark", () => {
     );
   });
 
-  it("started a local mail server that the app sends through, readable in the Outbox", async () => {
+  it("started a local mail server that the app sends through, readable by its recipient", async () => {
     const asked = await json("/api/auth/password-reset/request", {
       method: "POST",
       body: JSON.stringify({ email: "viewer@demo.rillmark.test" }),
     });
     expect(asked.status).toBe(202);
-    const admin = await json("/api/auth/sign-in", {
+    const viewer = await json("/api/auth/sign-in", {
       method: "POST",
-      body: JSON.stringify({ email: "admin@demo.rillmark.test", password: DEMO_PASSWORD }),
+      body: JSON.stringify({ email: "viewer@demo.rillmark.test", password: DEMO_PASSWORD }),
     });
-    const cookie = admin.res.headers.get("set-cookie")?.split(";")[0] ?? "";
+    const cookie = viewer.res.headers.get("set-cookie")?.split(";")[0] ?? "";
     const deadline = Date.now() + 5000;
     let found = false;
     while (!found && Date.now() < deadline) {

@@ -29,7 +29,7 @@ beforeAll(async () => {
     db: t.db,
     team,
     projectId: await freshProject(t.db, team.id),
-    outboxId: await outboxFixture(t.db),
+    outboxId: await outboxFixture(t.db, team.id),
   };
   for (const role of ROLES) {
     const agent = t.agent();

@@ -8,6 +8,7 @@ import { linkClass } from "../../../components/link-styles";
 import { TextField } from "../../../components/TextField";
 import { useSchemaForm } from "../../../lib/form";
 import { useRequestPasswordReset } from "../api/reset-request";
+import { LocalMailNote } from "./LocalMailNote";
 
 export function ResetRequestPage() {
   const request = useRequestPasswordReset();
@@ -27,9 +28,12 @@ export function ResetRequestPage() {
       intro="We'll e-mail you a link to choose a new password. It works once, within one hour."
     >
       {sentTo ? (
-        <Notice>
-          If <strong>{sentTo}</strong> has a Rillmark account, the reset link is on its way.
-        </Notice>
+        <>
+          <Notice>
+            If <strong>{sentTo}</strong> has a Rillmark account, the reset link is on its way.
+          </Notice>
+          <LocalMailNote />
+        </>
       ) : (
         <form noValidate onSubmit={onSubmit} className="space-y-4">
           <TextField

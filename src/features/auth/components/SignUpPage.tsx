@@ -9,6 +9,7 @@ import { TextField } from "../../../components/TextField";
 import { useSchemaForm } from "../../../lib/form";
 import { usePublicConfig } from "../../../lib/session";
 import { useSignUp } from "../api/sign-up";
+import { LocalMailNote } from "./LocalMailNote";
 
 const FIELDS = ["email", "name", "password", "teamName"] as const;
 
@@ -41,6 +42,7 @@ export function SignUpPage() {
           We sent a confirmation link to <strong>{sentTo}</strong>. Open it within 24 hours to
           create your account and your team.
         </Notice>
+        <LocalMailNote />
         <p className="mt-4 text-sm text-ink-600">
           Nothing arrived? Look in the spam folder, or{" "}
           <button type="button" className={linkClass} onClick={() => setSentTo(null)}>

@@ -19,7 +19,7 @@ export function OutboxPage() {
     <>
       <PageHeader
         title="Outbox"
-        description="Mail this development server has sent — invitations, confirmations, reset links — kept here instead of being delivered."
+        description="Mail this development server kept instead of delivering: what was sent to you, and the invitations of teams you manage."
         actions={
           <Button
             variant="secondary"
