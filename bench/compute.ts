@@ -105,7 +105,7 @@ export async function run(): Promise<BenchRow[]> {
     config.mailFrom,
   );
   const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
-  const app = createApp(config, { db, sessionStore, mailer, store: storage.store, jobs });
+  const app = createApp(config, { db, pool, sessionStore, mailer, store: storage.store, jobs });
   const server = http.createServer(app);
   await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;

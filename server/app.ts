@@ -1,6 +1,7 @@
 import compression from "compression";
 import express, { type Express, type RequestHandler } from "express";
 import type session from "express-session";
+import type pg from "pg";
 import { createRateLimiters } from "./auth/rate-limits";
 import { sessionMiddleware } from "./auth/session";
 import type { AppConfig } from "./config";
@@ -37,6 +38,8 @@ import type { ObjectStore } from "./storage";
 
 export interface AppDeps {
   db: Db;
+  /** The pool behind `db`: the rate-limit counters use it directly. */
+  pool: pg.Pool;
   sessionStore: session.Store;
   mailer: Mailer;
   store: ObjectStore;
@@ -61,7 +64,7 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
     db: deps.db,
     config,
     mailer: deps.mailer,
-    limiters: createRateLimiters(config),
+    limiters: createRateLimiters(deps.pool, config),
     store: deps.store,
     jobs: deps.jobs,
   };

@@ -67,6 +67,7 @@ const envSchema = z.object({
   RATE_LIMIT_WINDOW_MINUTES: count(15),
   SIGN_IN_LIMIT_PER_ACCOUNT: count(10),
   SIGN_IN_LIMIT_PER_IP: count(50),
+  SIGN_IN_LOCK_SECONDS: count(60),
   EMAIL_LIMIT_PER_IP: count(20),
   EMAIL_LIMIT_PER_ADDRESS: count(5),
   SESSION_MAX_AGE_HOURS: count(24 * 14),
@@ -121,13 +122,7 @@ export interface Config {
   fakeSmtpPort: number;
   clientDist: string;
   outboxEnabled: boolean;
-  rateLimits: {
-    windowMs: number;
-    signInPerAccount: number;
-    signInPerIp: number;
-    emailPerIp: number;
-    emailPerAddress: number;
-  };
+  rateLimits: RateLimitConfig;
   sessionMaxAgeMs: number;
   storage: StorageConfig;
   uploads: UploadConfig;
@@ -135,6 +130,20 @@ export interface Config {
   basemap: BasemapConfig;
   /** Queue names get this suffix (tests: one per app, so apps sharing a database never swap jobs). */
   jobQueueSuffix: string;
+}
+
+export interface RateLimitConfig {
+  windowMs: number;
+  signInPerAccount: number;
+  signInPerIp: number;
+  /** How long an account that ran out of attempts waits between attempts from new devices. */
+  signInLockMs: number;
+  emailPerIp: number;
+  emailPerAddress: number;
+  /** Starts every counter's key: apps sharing a database share counters only with one prefix. */
+  keyPrefix: string;
+  /** Delete long-expired counters every few minutes (off in tests: many short-lived apps). */
+  pruneExpired: boolean;
 }
 
 export interface StorageConfig {
@@ -220,8 +229,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       windowMs: e.RATE_LIMIT_WINDOW_MINUTES * 60_000,
       signInPerAccount: e.SIGN_IN_LIMIT_PER_ACCOUNT,
       signInPerIp: e.SIGN_IN_LIMIT_PER_IP,
+      signInLockMs: e.SIGN_IN_LOCK_SECONDS * 1000,
       emailPerIp: e.EMAIL_LIMIT_PER_IP,
       emailPerAddress: e.EMAIL_LIMIT_PER_ADDRESS,
+      keyPrefix: "",
+      pruneExpired: true,
     },
     sessionMaxAgeMs: e.SESSION_MAX_AGE_HOURS * 3_600_000,
     storage: {

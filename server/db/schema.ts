@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import {
+  bigint,
   boolean,
   check,
   index,
@@ -156,6 +157,21 @@ export const seedRuns = pgTable("seed_runs", {
   name: text("name").primaryKey(),
   ranAt: at("ran_at").notNull().defaultNow(),
 });
+
+/**
+ * rate-limiter-flexible's Postgres store (server/auth/rate-limits.ts), owned by our migrations
+ * like the sessions table: counters every app process shares and a restart keeps. Its columns
+ * are the store's own (expire in epoch milliseconds); keys carry no e-mail in clear.
+ */
+export const rateLimits = pgTable(
+  "rate_limits",
+  {
+    key: varchar("key", { length: 255 }).primaryKey(),
+    points: integer("points").notNull().default(0),
+    expire: bigint("expire", { mode: "number" }),
+  },
+  (t) => [index("rate_limits_expire_idx").on(t.expire)],
+);
 
 /** connect-pg-simple's table, owned by our migrations (the store must not create it). */
 export const userSessions = pgTable(

@@ -81,7 +81,7 @@ export async function startWeb(base: Config): Promise<RunningWeb> {
     const config: AppConfig = { ...base, port, publicBaseUrl: resolvePublicBaseUrl(base, port) };
     server.on(
       "request",
-      createApp(config, { db, sessionStore, mailer, store: storage.store, jobs }),
+      createApp(config, { db, pool, sessionStore, mailer, store: storage.store, jobs }),
     );
     const url = resolvePublicBaseUrl({ ...base, publicBaseUrl: undefined }, port);
     return { url, port, config, database, close: cleanups.run };

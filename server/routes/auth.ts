@@ -32,13 +32,15 @@ export function authRouter(deps: RouteDeps): Router {
   const baseUrl = config.publicBaseUrl;
   const router = Router();
 
-  router.post("/auth/sign-in", ...limiters.signIn, async (req, res) => {
+  router.post("/auth/sign-in", async (req, res) => {
     const body = validate(signInBody, req.body);
+    const attempt = await limiters.signIn.begin(req, res, body.email);
     const [user] = await db.select().from(users).where(eq(users.email, body.email));
     const ok = user
       ? await verifyPassword(user.passwordHash, body.password)
       : await verifyAgainstDummy(body.password);
     if (!user || !ok) {
+      await attempt.failed();
       throw new HttpError(401, "invalid_credentials", "The e-mail address or password is wrong.");
     }
     if (needsRehash(user.passwordHash)) {
@@ -46,6 +48,7 @@ export function authRouter(deps: RouteDeps): Router {
       await db.update(users).set({ passwordHash }).where(eq(users.id, user.id));
     }
     await signInSession(req, user.id);
+    await attempt.succeeded();
     res.json(await sessionInfo(db, user.id));
   });
 
@@ -59,7 +62,7 @@ export function authRouter(deps: RouteDeps): Router {
     res.json(await sessionInfo(db, currentUser(req).id));
   });
 
-  router.post("/auth/sign-up", ...limiters.emailRequest, async (req, res) => {
+  router.post("/auth/sign-up", limiters.emailRequest, async (req, res) => {
     if (!config.signUpEnabled) {
       throw new HttpError(
         403,
@@ -135,7 +138,7 @@ export function authRouter(deps: RouteDeps): Router {
     res.status(201).json(await sessionInfo(db, userId));
   });
 
-  router.post("/auth/password-reset/request", ...limiters.emailRequest, async (req, res) => {
+  router.post("/auth/password-reset/request", limiters.emailRequest, async (req, res) => {
     const { email } = validate(resetRequestBody, req.body);
     const [user] = await db
       .select({ id: users.id, name: users.name })
@@ -158,7 +161,7 @@ export function authRouter(deps: RouteDeps): Router {
   router.post("/auth/password-reset/complete", async (req, res) => {
     const body = validate(resetCompleteBody, req.body);
     const passwordHash = await hashPassword(body.password);
-    await db.transaction(async (tx) => {
+    const email = await db.transaction(async (tx) => {
       const [reset] = await tx
         .select()
         .from(passwordResets)
@@ -166,14 +169,21 @@ export function authRouter(deps: RouteDeps): Router {
         .for("update");
       if (!reset) throw notFound("This reset link");
       if (reset.usedAt || reset.expiresAt <= new Date()) throw linkExpired();
-      await tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId));
+      const [user] = await tx
+        .update(users)
+        .set({ passwordHash })
+        .where(eq(users.id, reset.userId))
+        .returning({ email: users.email });
       // Every other outstanding link for the account dies with this one.
       await tx
         .update(passwordResets)
         .set({ usedAt: new Date() })
         .where(and(eq(passwordResets.userId, reset.userId), isNull(passwordResets.usedAt)));
       await deleteUserSessions(tx, reset.userId);
+      return user?.email;
     });
+    // Whoever holds the mailbox has proved it: others' wrong guesses no longer make them wait.
+    if (email) await limiters.signIn.forget(email);
     res.status(204).end();
   });
 

@@ -155,9 +155,8 @@ describe("two app instances and a worker", () => {
     expect(found).toBe(true);
   });
 
-  // Marked: sign-in counters are still kept in each process's memory on this branch; the change
-  // that stores them in PostgreSQL turns this into a plain `it` (and `it.fails` then fails).
-  it.fails("count sign-in failures made through either instance together", async () => {
+  // The counters live in PostgreSQL (docs/decisions/011-sign-in-limits.md).
+  it("count sign-in failures made through either instance together", async () => {
     const who = { email: team.members.reviewer.email, password: `${TEST_PASSWORD}-wrong` };
     for (const app of [a, b, a, b]) {
       const res = await app.agent().post("/api/auth/sign-in").send(who);

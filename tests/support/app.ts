@@ -69,8 +69,12 @@ export function testConfig(overrides: Partial<AppConfig> = {}, tempDir?: string)
       windowMs: 15 * 60_000,
       signInPerAccount: 1000,
       signInPerIp: 1000,
+      signInLockMs: 30_000,
       emailPerIp: 1000,
       emailPerAddress: 1000,
+      // Every app counts on its own (tests share one database and one client address).
+      keyPrefix: `test-${randomUUID().slice(0, 8)}:`,
+      pruneExpired: false,
     },
     ...overrides,
   };
@@ -127,7 +131,7 @@ export async function startTestApp(
     config.mailFrom,
   );
   const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
-  const app = createApp(config, { db, sessionStore, mailer, store: storage.store, jobs });
+  const app = createApp(config, { db, pool, sessionStore, mailer, store: storage.store, jobs });
   return {
     app,
     db,
