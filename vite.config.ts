@@ -21,7 +21,7 @@ export default defineConfig({
             "shared/**/*.test.ts",
             "src/**/*.test.{ts,tsx}",
             "tests/cli/**/*.test.ts",
-            "server/geodata/**/*.test.ts",
+            "server/**/*.test.ts",
             "demo-geo/**/*.test.ts",
           ],
         },

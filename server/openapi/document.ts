@@ -7,14 +7,21 @@ import { registerMapPaths } from "./paths-map";
 import { ApiDocs } from "./registry";
 
 let cached: ReturnType<OpenApiGeneratorV31["generateDocument"]> | undefined;
+let cachedDocs: ApiDocs | undefined;
+
+/** Every documented route with its zod schemas (tests walk the bodies). */
+export function apiDocs(): ApiDocs {
+  if (cachedDocs) return cachedDocs;
+  cachedDocs = new ApiDocs();
+  registerCorePaths(cachedDocs);
+  registerGeodataPaths(cachedDocs);
+  registerMapPaths(cachedDocs);
+  return cachedDocs;
+}
 
 export function openApiDocument() {
   if (cached) return cached;
-  const docs = new ApiDocs();
-  registerCorePaths(docs);
-  registerGeodataPaths(docs);
-  registerMapPaths(docs);
-  cached = new OpenApiGeneratorV31(docs.registry.definitions).generateDocument({
+  cached = new OpenApiGeneratorV31(apiDocs().registry.definitions).generateDocument({
     openapi: "3.1.0",
     info: {
       title: "Rillmark API",

@@ -21,15 +21,18 @@ export const projectDescriptionSchema = z
   .trim()
   .max(2000, { message: "Use at most 2000 characters." });
 
+// A JSON number only: `true` or "10" in a body is a client bug to report, not to guess at.
+const returnPeriodYears = z
+  .number({ message: "Choose a return period." })
+  .refine((v) => (RETURN_PERIODS_YEARS as readonly number[]).includes(v), {
+    message: `Choose one of ${RETURN_PERIODS_YEARS.join(", ")} years.`,
+  });
+
 const projectFields = {
   name: projectNameSchema,
   description: projectDescriptionSchema,
   units: z.enum(UNIT_SYSTEMS, { message: "Choose US customary or SI." }),
-  designReturnPeriodYears: z.coerce
-    .number({ message: "Choose a return period." })
-    .refine((v) => (RETURN_PERIODS_YEARS as readonly number[]).includes(v), {
-      message: `Choose one of ${RETURN_PERIODS_YEARS.join(", ")} years.`,
-    }),
+  designReturnPeriodYears: returnPeriodYears,
 };
 
 export const createProjectBody = z.object({
@@ -42,6 +45,18 @@ export type CreateProjectBody = z.input<typeof createProjectBody>;
 // out keeps it instead of clearing it.
 export const updateProjectBody = z.object(projectFields).partial();
 export type UpdateProjectBody = z.input<typeof updateProjectBody>;
+
+/** A form's <select> gives the return period as text; the forms read it as the number it is. */
+const returnPeriodFromForm = z.preprocess(
+  (v) => (typeof v === "string" && /^\d+$/.test(v) ? Number(v) : v),
+  returnPeriodYears,
+);
+export const createProjectForm = createProjectBody.extend({
+  designReturnPeriodYears: returnPeriodFromForm,
+});
+export const updateProjectForm = updateProjectBody.extend({
+  designReturnPeriodYears: returnPeriodFromForm.optional(),
+});
 
 export const projectSchema = z.object({
   id: z.string(),

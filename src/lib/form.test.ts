@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { signUpBody } from "../../shared/schemas/auth";
-import { createProjectBody } from "../../shared/schemas/projects";
+import { createProjectForm } from "../../shared/schemas/projects";
 import { fieldErrorsOf } from "./form";
 
 describe("fieldErrorsOf", () => {
@@ -17,7 +17,7 @@ describe("fieldErrorsOf", () => {
   });
 
   it("reads form values as the browser sends them (strings), like the server does", () => {
-    const result = createProjectBody.safeParse({
+    const result = createProjectForm.safeParse({
       name: "Ridge Road",
       units: "si",
       designReturnPeriodYears: "7",
@@ -26,5 +26,11 @@ describe("fieldErrorsOf", () => {
     expect(result.success).toBe(false);
     if (result.success) return;
     expect(Object.keys(fieldErrorsOf(result.error))).toEqual(["designReturnPeriodYears"]);
+    const good = createProjectForm.safeParse({
+      name: "Ridge Road",
+      units: "si",
+      designReturnPeriodYears: "10",
+    });
+    expect(good.success && good.data.designReturnPeriodYears).toBe(10);
   });
 });

@@ -27,7 +27,7 @@ describe("projects", () => {
     const res = await create({
       name: "Larch Street outfall",
       units: "si",
-      designReturnPeriodYears: "10",
+      designReturnPeriodYears: 10,
     });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from "react";
 import { Link } from "react-router-dom";
-import { createProjectBody, type Project } from "../../../../shared/schemas/projects";
+import { createProjectForm, type Project } from "../../../../shared/schemas/projects";
 import { Button } from "../../../components/Button";
 import { FormError, Notice } from "../../../components/FormError";
 import { linkClass } from "../../../components/link-styles";
@@ -10,7 +10,7 @@ import { PROJECT_FIELDS, ProjectFields } from "./ProjectFields";
 
 export function CreateProjectForm({ teamId }: { teamId: string }) {
   const create = useCreateProject(teamId);
-  const form = useSchemaForm(createProjectBody, create.error, PROJECT_FIELDS);
+  const form = useSchemaForm(createProjectForm, create.error, PROJECT_FIELDS);
   const [created, setCreated] = useState<Project | null>(null);
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {

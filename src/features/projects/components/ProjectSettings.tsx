@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from "react";
 import {
-  updateProjectBody,
+  updateProjectForm,
   UNIT_SYSTEM_LABELS,
   type Project,
 } from "../../../../shared/schemas/projects";
@@ -34,7 +34,7 @@ function SettingsList({ project }: { project: Project }) {
 
 function EditSettingsForm({ project, onDone }: { project: Project; onDone: () => void }) {
   const update = useUpdateProject(project.id);
-  const form = useSchemaForm(updateProjectBody, update.error, PROJECT_FIELDS);
+  const form = useSchemaForm(updateProjectForm, update.error, PROJECT_FIELDS);
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
