@@ -11,6 +11,7 @@ import { stopWorkWhenClientLeaves } from "./http/client-gone";
 import { MVT_TYPE } from "./tiles/respond";
 import { apiNotFound, errorHandler } from "./http/errors";
 import { requireJsonOrUpload } from "./http/multipart-routes";
+import { acceptedBodyEncoding, rejectUnstorableText } from "./http/request-checks";
 import { sameOriginOnly, securityHeaders } from "./http/security";
 import type { JobQueue } from "./jobs/queue";
 import type { Mailer } from "./mail/mailer";
@@ -73,9 +74,11 @@ export function createApp(config: AppConfig, deps: AppDeps): Express {
   api.use(noStore);
   api.use(sameOriginOnly(config.publicBaseUrl));
   api.use(requireJsonOrUpload);
+  api.use(acceptedBodyEncoding);
   api.use(
     express.json({ limit: JSON_BODY_LIMIT, type: ["application/json", "application/*+json"] }),
   );
+  api.use(rejectUnstorableText);
   api.use(sessionMiddleware(config, deps.sessionStore));
   api.use(stopWorkWhenClientLeaves);
   // One line per resource; geodata routers join this list.

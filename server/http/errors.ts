@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from "express";
 import type { ApiError } from "../../shared/schemas/common";
 import { statementStopped } from "../db/errors";
 import { RequestGoneError } from "../db/request-scope";
+import { logError, redactText } from "../log";
 
 /** An error with a status and code the client can act on; thrown anywhere in a handler. */
 export class HttpError extends Error {
@@ -49,10 +50,23 @@ const BODY_ERRORS: Record<string, HttpError> = {
   "charset.unsupported": new HttpError(415, "unsupported_charset", "Send the body as UTF-8."),
 };
 
+/**
+ * A body the parser refused: by its `type`, or any other client error it raised (http-errors
+ * marks those `expose`), such as a gzip body that does not decompress.
+ */
 function bodyParserError(err: unknown): HttpError | undefined {
-  if (typeof err !== "object" || err === null || !("type" in err)) return undefined;
-  const type = (err as { type: unknown }).type;
-  return typeof type === "string" ? BODY_ERRORS[type] : undefined;
+  if (typeof err !== "object" || err === null) return undefined;
+  const { type, status, expose } = err as { type?: unknown; status?: unknown; expose?: unknown };
+  const known = typeof type === "string" ? BODY_ERRORS[type] : undefined;
+  if (known) return known;
+  if (expose === true && typeof status === "number" && status >= 400 && status < 500) {
+    return new HttpError(
+      status,
+      "invalid_body",
+      "The request body could not be read (broken compression or an interrupted upload).",
+    );
+  }
+  return undefined;
 }
 
 /** PostgreSQL stopped a statement past the time limit (or an administrator cancelled it). */
@@ -78,7 +92,9 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
   // The client went away and its work was stopped: there is nobody to answer.
   if (err instanceof RequestGoneError || (stopped === "cancelled" && req.socket.destroyed)) return;
   if (stopped) {
-    console.warn(`Database statement stopped (${stopped}) on ${req.method} ${req.path}`);
+    console.warn(
+      redactText(`Database statement stopped (${stopped}) on ${req.method} ${req.path}`),
+    );
     res.status(503).set("Retry-After", "10").json(databaseTooSlow().toJSON());
     return;
   }
@@ -87,7 +103,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, next) 
     res.status(known.status).json(known.toJSON());
     return;
   }
-  console.error(`Unhandled error on ${req.method} ${req.originalUrl}:`, err);
+  logError(`Unhandled error on ${req.method} ${req.originalUrl}:`, err);
   res
     .status(500)
     .json(
