@@ -11,6 +11,7 @@ import { run as foreignData } from "./foreign-data";
 import { run as tiles } from "./tiles";
 import { run as mapDesk } from "./map";
 import { run as load } from "./load";
+import { run as accounts } from "./auth";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -23,6 +24,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "map tiles", run: tiles },
   { name: "map desk", run: mapDesk },
   { name: "several processes", run: load },
+  { name: "accounts", run: accounts },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

@@ -13,6 +13,7 @@ import http from "node:http";
 import type { AddressInfo } from "node:net";
 import { pathToFileURL } from "node:url";
 import { eq, sql } from "drizzle-orm";
+import { SESSION_COOKIE } from "../server/auth/session";
 import { runMigrations } from "../server/db/migrate";
 import { layers, surfaceClasses } from "../server/db/schema-geodata";
 import { ensureTeamCatalog } from "../server/geodata/catalog-seed";
@@ -146,7 +147,11 @@ export async function run(): Promise<BenchRow[]> {
         password: team.members.viewer.password,
       }),
     });
-    const cookie = (signIn.headers.get("set-cookie") ?? "").split(";")[0] ?? "";
+    const cookie =
+      signIn.headers
+        .getSetCookie()
+        .map((c) => c.split(";")[0] ?? "")
+        .find((c) => c.startsWith(`${SESSION_COOKIE}=`)) ?? "";
 
     const plan = await t.db.execute<{ "QUERY PLAN": string }>(
       sql`explain ${projectTileQuery(project.id, { z: 16, ...tileRange(16), x: tileRange(16).x0 + 3, y: tileRange(16).y0 + 3 })}`,

@@ -9,6 +9,7 @@ import {
 } from "../../shared/schemas/auth";
 import { currentUser, requireUser } from "../auth/guards";
 import { hashPassword, needsRehash, verifyAgainstDummy, verifyPassword } from "../auth/password";
+import { createPasswordReset } from "../auth/password-resets";
 import { deleteUserSessions, destroySession, SESSION_COOKIE, signInSession } from "../auth/session";
 import { sessionInfo } from "../auth/session-info";
 import { expiresIn, hashToken, newToken, TOKEN_LIFETIME_MS } from "../auth/tokens";
@@ -18,7 +19,7 @@ import { HttpError, linkExpired, notFound } from "../http/errors";
 import { validate } from "../http/validate";
 import { confirmEmailMail, passwordResetMail, signUpExistingMail } from "../mail/templates";
 import { ensureTeamCatalog } from "../geodata/catalog-seed";
-import { sendInBackground, type RouteDeps } from "./deps";
+import { afterAnswer, sendInBackground, type RouteDeps } from "./deps";
 
 const accountExists = () =>
   new HttpError(
@@ -140,21 +141,16 @@ export function authRouter(deps: RouteDeps): Router {
 
   router.post("/auth/password-reset/request", limiters.emailRequest, async (req, res) => {
     const { email } = validate(resetRequestBody, req.body);
-    const [user] = await db
-      .select({ id: users.id, name: users.name })
-      .from(users)
-      .where(eq(users.email, email));
-    if (user) {
-      const { token, tokenHash } = newToken();
-      await db.insert(passwordResets).values({
-        userId: user.id,
-        tokenHash,
-        expiresAt: expiresIn(TOKEN_LIFETIME_MS.passwordReset),
-      });
-      sendInBackground(mailer, email, passwordResetMail({ baseUrl, token, name: user.name }));
-    }
+    // The answer is the same and comes before the account is even looked up, so neither its
+    // content nor its time can tell whether the address has an account.
     res.status(202).json({
       message: `If ${email} has a Rillmark account, a message with a reset link is on its way.`,
+    });
+    afterAnswer(res, async () => {
+      const { token, tokenHash } = newToken();
+      const expiresAt = expiresIn(TOKEN_LIFETIME_MS.passwordReset);
+      const user = await createPasswordReset(db, email, tokenHash, expiresAt);
+      if (user) await mailer.send(email, passwordResetMail({ baseUrl, token, name: user.name }));
     });
   });
 

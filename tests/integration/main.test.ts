@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startRillmark, type RunningRillmark } from "../../server/main";
+import { SESSION_COOKIE } from "../../server/auth/session";
 import { DEMO_PASSWORD } from "../../server/seed/demo";
 
 // The whole server as `npm start` runs it: migrations, demo seed, local mail server, HTTP.
@@ -15,6 +16,12 @@ async function json(path: string, init: RequestInit = {}) {
     headers: { "Content-Type": "application/json", Origin: running.url, ...init.headers },
   });
   return { status: res.status, body: (await res.json()) as Record<string, unknown>, res };
+}
+
+/** The session cookie among those sign-in sets (it also marks the device). */
+function sessionCookieOf(res: Response): string {
+  const all = res.headers.getSetCookie().map((c) => c.split(";")[0] ?? "");
+  return all.find((c) => c.startsWith(`${SESSION_COOKIE}=`)) ?? "";
 }
 
 describe("startRillmark", () => {
@@ -33,7 +40,7 @@ describe("startRillmark", () => {
     expect(signIn.status).toBe(200);
     const memberships = signIn.body.memberships as { teamId: string; role: string }[];
     expect(memberships[0]?.role).toBe("engineer");
-    const cookie = signIn.res.headers.get("set-cookie")?.split(";")[0] ?? "";
+    const cookie = sessionCookieOf(signIn.res);
     const list = await json(`/api/teams/${memberships[0]?.teamId}/projects`, {
       headers: { Cookie: cookie },
     });
@@ -53,7 +60,7 @@ describe("startRillmark", () => {
       method: "POST",
       body: JSON.stringify({ email: "viewer@demo.rillmark.test", password: DEMO_PASSWORD }),
     });
-    const cookie = viewer.res.headers.get("set-cookie")?.split(";")[0] ?? "";
+    const cookie = sessionCookieOf(viewer.res);
     const deadline = Date.now() + 5000;
     let found = false;
     while (!found && Date.now() < deadline) {
