@@ -94,14 +94,22 @@ export function loadTeamMembership(db: Db, param = "teamId"): RequestHandler {
   };
 }
 
-/** Routes under /projects/:projectId: find the project's team, then the caller's membership. */
-export function loadProjectAccess(db: Db, param = "projectId"): RequestHandler {
+/**
+ * Routes under /projects/:projectId: find the project's team, then the caller's membership.
+ * `what` names the object the route is about (a layer reached through its project answers
+ * "This layer" either way, so the message never tells which step failed).
+ */
+export function loadProjectAccess(
+  db: Db,
+  param = "projectId",
+  what = "This project",
+): RequestHandler {
   return async (req, _res, next) => {
-    const projectId = validateParam(idSchema, req.params[param], "This project");
+    const projectId = validateParam(idSchema, req.params[param], what);
     const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-    if (!project) throw notFound("This project");
+    if (!project) throw notFound(what);
     const access = await membershipOf(db, currentUser(req).id, project.teamId);
-    if (!access) throw notFound("This project");
+    if (!access) throw notFound(what);
     const ctx = context(req);
     ctx.team = access;
     ctx.project = project;

@@ -16,7 +16,7 @@ type WithLayer = Request & { [LAYER]?: LayerRow };
  * project's team exactly as project routes do (another team's layer is a 404).
  */
 export function loadLayerAccess(db: Db): RequestHandler {
-  const projectAccess = loadProjectAccess(db);
+  const projectAccess = loadProjectAccess(db, "projectId", "This layer");
   return async (req, res, next) => {
     const layerId = validateParam(idSchema, req.params.layerId, "This layer");
     const [row] = await db.select().from(layers).where(eq(layers.id, layerId));

@@ -70,6 +70,8 @@ export class ApiDocs {
       summary: doc.summary,
       description: who,
       tags: [doc.tag],
+      // Machine-readable for the authorization matrix test: null means no session needed.
+      "x-rillmark-permission": doc.permission,
       ...(doc.permission !== null && { security: [{ session: [] }] }),
       request: {
         ...(params && { params }),

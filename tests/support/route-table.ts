@@ -17,6 +17,7 @@ import {
 } from "./app";
 import { GEODATA_ROUTE_CASES } from "./route-table-geodata";
 import { MAP_ROUTE_CASES } from "./route-table-map";
+import { PUBLIC_ROUTE_CASES } from "./route-table-public";
 
 /** The objects a route case acts on: one team (one member per role) with one project. */
 export interface RouteFixture {
@@ -43,6 +44,10 @@ export interface RouteCase {
   /** Builds the concrete request; destructive cases make a fresh target each time. */
   prepare(f: RouteFixture): Promise<{ path: string; body?: object; upload?: RouteUpload }>;
   expected: Record<Caller, number>;
+  /** The error code of a refusal when it is not the usual one for its status. */
+  code?: string;
+  /** The route ends the caller's session (sign-out): each call gets a session of its own. */
+  freshSession?: boolean;
 }
 
 const table = (
@@ -146,7 +151,7 @@ function smallGeoJson(): string {
 
 const project = { name: "Culvert study", units: "us", designReturnPeriodYears: 10 };
 
-/** Every API route that needs a signed-in caller, with the status each role must get. */
+/** Every documented API operation, with the status each caller must get. */
 export const ROUTE_CASES: RouteCase[] = [
   {
     method: "get",
@@ -351,6 +356,7 @@ export const ROUTE_CASES: RouteCase[] = [
   },
   ...GEODATA_ROUTE_CASES,
   ...MAP_ROUTE_CASES,
+  ...PUBLIC_ROUTE_CASES,
 ];
 
 /** Sends a route case's request: JSON body, multipart upload, or neither. */
