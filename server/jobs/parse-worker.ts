@@ -7,7 +7,11 @@
 import { parentPort, workerData } from "node:worker_threads";
 import { readVectorFile } from "../geodata/readers";
 import { ReadError } from "../geodata/readers/types";
-import { checkGeometryTypes, insertBatches } from "../layers/geometry-kinds";
+import {
+  checkGeometryTypes,
+  checkStorableAttributes,
+  insertBatches,
+} from "../layers/geometry-kinds";
 import type { ParseMessage, ParseRequest } from "./parse-thread";
 
 const port = parentPort;
@@ -32,6 +36,7 @@ async function parse(request: ParseRequest): Promise<ParseMessage> {
     },
   );
   checkGeometryTypes(request.kind, request.originalName, read.features);
+  checkStorableAttributes(request.originalName, read.features);
   return {
     type: "result",
     result: {

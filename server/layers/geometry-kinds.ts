@@ -1,5 +1,6 @@
 import type { Feature, Geometry } from "geojson";
 import { ReadError } from "../geodata/readers/types";
+import { findUnstorableText } from "../http/request-checks";
 
 const POLYGONAL = new Set(["Polygon", "MultiPolygon"]);
 const LINEAR = new Set(["LineString", "MultiLineString"]);
@@ -21,6 +22,28 @@ export function checkGeometryTypes(
     `${fileName}: feature ${index + 1} is a ${bad.geometry.type}; a ${kind} layer takes ${wanted} only.`,
     `feature ${index + 1}`,
   );
+}
+
+/**
+ * Attribute names and values PostgreSQL can store (jsonb holds no NUL; an unpaired surrogate has
+ * no UTF-8 form): the first that cannot is refused by feature and attribute, not left to fail
+ * the insert as a server error.
+ */
+export function checkStorableAttributes(
+  fileName: string,
+  features: readonly Feature<Geometry, Record<string, unknown>>[],
+): void {
+  for (const [index, f] of features.entries()) {
+    const field = findUnstorableText(f.properties ?? {});
+    if (field === undefined) continue;
+    throw new ReadError(
+      422,
+      "unstorable-text",
+      `${fileName}: feature ${index + 1}, attribute "${field.replace(/[^\x20-\x7e]/g, "?")}": ` +
+        "contains a NUL or an unpaired surrogate, which cannot be stored. Remove it and upload again.",
+      `feature ${index + 1}`,
+    );
+  }
 }
 
 /** Rows per INSERT statement: one JSON text parameter each. */

@@ -14,6 +14,7 @@ import type { ObjectStore } from "../storage";
 import type { LayerRow } from "./dto";
 import { INSERT_BATCH } from "./geometry-kinds";
 import { featureBbox, insertFeatures, repairOrRejectPolygons } from "./feature-store";
+import { logError } from "../log";
 
 export interface IngestDeps {
   db: Db;
@@ -162,7 +163,7 @@ function toLayerError(err: unknown): LayerError {
       ...(err.where && { where: err.where }),
     };
   }
-  console.error("Layer ingest failed:", err);
+  logError("Layer ingest failed:", err);
   return {
     status: 500,
     code: "internal_error",

@@ -18,6 +18,9 @@ import {
   type TestApp,
   type TestTeam,
 } from "../support/app";
+import { FileKit, geojsonText, lonLatPolygon } from "../support/layer-files";
+import { leftovers, NOTHING, uploadLayer } from "../support/layers";
+import { freshProject } from "../support/route-table";
 
 let t: TestApp;
 let team: TestTeam;
@@ -156,6 +159,39 @@ describe("text that cannot be stored", () => {
   it("answers a path name with a NUL as not found", async () => {
     const layer = await owner.get(`/api/layers/${"%00".repeat(3)}`);
     expect(layer.status).toBe(404);
+  });
+});
+
+describe("text that cannot be stored in an uploaded layer's attributes", () => {
+  const kit = new FileKit();
+  afterAll(() => kit.close());
+  const square = lonLatPolygon([
+    [0, 0],
+    [1, 0],
+    [1, 1],
+    [0, 0],
+  ]);
+
+  it.each([
+    ["a NUL in a value", { C: "lawn", NOTE: NUL }, 'attribute "NOTE"'],
+    ["a lone surrogate in a value", { C: LONE }, 'attribute "C"'],
+    ["a NUL in a name", { [`N${NUL}`]: 1 }, 'attribute "Na?b"'],
+  ])("%s: 422 naming the feature and attribute, nothing stored", async (_label, props, named) => {
+    const gis = t.agent();
+    await signIn(gis, team.members.gis);
+    const project = await freshProject(t.db, team.id);
+    const text = geojsonText([
+      { geometry: square, properties: { C: "lawn" } },
+      { geometry: square, properties: props },
+    ]);
+    const res = await uploadLayer(gis, project, {
+      kind: "cover",
+      file: kit.write("bad.geojson", text),
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(422);
+    expect(res.body.error.code).toBe("unstorable-text");
+    expect(res.body.error.message).toContain(`bad.geojson: feature 2, ${named}`);
+    expect(await leftovers(t, project)).toEqual(NOTHING);
   });
 });
 
