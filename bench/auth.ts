@@ -21,6 +21,7 @@ import { runMigrations } from "../server/db/migrate";
 import { users } from "../server/db/schema";
 import { startJobQueue } from "../server/jobs/queue";
 import { startFakeSmtp } from "../server/mail/fake-smtp";
+import { newStandInCredentials } from "../server/standins";
 import { createMailer } from "../server/mail/mailer";
 import { startStorage } from "../server/storage";
 import type { BenchRow } from "./table";
@@ -63,14 +64,15 @@ export async function run(): Promise<BenchRow[]> {
     supervise: false,
     deleteQueuesOnClose: true,
   });
-  const smtp = await startFakeSmtp(db, 0);
+  const smtpCredentials = newStandInCredentials().smtp;
+  const smtp = await startFakeSmtp(db, smtpCredentials, 0);
   const mailer = createMailer(
     {
       host: "127.0.0.1",
       port: smtp.port,
       secure: false,
-      user: undefined,
-      pass: undefined,
+      user: smtpCredentials.user,
+      pass: smtpCredentials.pass,
       requireTls: false,
     },
     config.mailFrom,

@@ -185,6 +185,11 @@ export class ConfigError extends Error {
   override name = "ConfigError";
 }
 
+/** An address on this machine (the local stand-ins live there). */
+export function isLoopbackHost(host: string): boolean {
+  return host === "localhost" || host === "::1" || /^127(\.\d{1,3}){3}$/.test(host);
+}
+
 /** Parse the environment once at boot. Throws ConfigError with every problem listed. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(env);
@@ -222,9 +227,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     clientDist: e.CLIENT_DIST,
-    // Only while mail goes to the local fake server: with a real SMTP server there is nothing
-    // to show, and production never exposes stored mail.
-    outboxEnabled: e.NODE_ENV !== "production" && !e.SMTP_HOST,
+    // Only while mail goes to the local stand-in (no SMTP_HOST, or the address npm start gives
+    // its app processes, on this machine): a real mail service leaves nothing to show, and
+    // production never shows stored mail.
+    outboxEnabled: e.NODE_ENV !== "production" && (!e.SMTP_HOST || isLoopbackHost(e.SMTP_HOST)),
     rateLimits: {
       windowMs: e.RATE_LIMIT_WINDOW_MINUTES * 60_000,
       signInPerAccount: e.SIGN_IN_LIMIT_PER_ACCOUNT,

@@ -1,5 +1,5 @@
 import nodemailer from "nodemailer";
-import type { Config } from "../config";
+import { isLoopbackHost, type Config } from "../config";
 import type { MailContent } from "./templates";
 
 /** The header naming the team a message is sent for; the local Outbox files mail by it. */
@@ -34,15 +34,11 @@ export interface SmtpTarget {
 export function smtpTarget(config: Config): SmtpTarget {
   const host = config.smtp.host;
   if (!host) throw new Error("No SMTP_HOST configured and no local mail stand-in started.");
-  return { ...config.smtp, host, requireTls: !config.smtp.secure && !isLoopback(host) };
-}
-
-function isLoopback(host: string): boolean {
-  return host === "localhost" || host === "::1" || /^127(\.\d{1,3}){3}$/.test(host);
+  return { ...config.smtp, host, requireTls: !config.smtp.secure && !isLoopbackHost(host) };
 }
 
 export function createMailer(target: SmtpTarget, from: string): Mailer {
-  const local = isLoopback(target.host) && !target.requireTls;
+  const local = isLoopbackHost(target.host) && !target.requireTls;
   const transport = nodemailer.createTransport({
     host: target.host,
     port: target.port,

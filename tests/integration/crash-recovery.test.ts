@@ -15,7 +15,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { connectDatabase, type Database } from "../../server/db/client";
 import { projects } from "../../server/db/schema";
 import { flowPaths, layers, subcatchments } from "../../server/db/schema-geodata";
-import { createTeam, TEST_PASSWORD, type TestTeam } from "../support/app";
+import { createTeam, sessionCookieOf, TEST_PASSWORD, type TestTeam } from "../support/app";
 import { SOIL_GEOJSON } from "../support/layer-files";
 
 const ROUNDS = 10;
@@ -105,7 +105,7 @@ beforeAll(async () => {
     body: JSON.stringify({ email: team.members.owner.email, password: TEST_PASSWORD }),
   });
   expect(signedIn.status).toBe(200);
-  cookie = (signedIn.headers.get("set-cookie") ?? "").split(";")[0] ?? "";
+  cookie = sessionCookieOf(signedIn);
 }, 240_000);
 
 afterAll(async () => {

@@ -21,6 +21,7 @@ import {
 } from "../../server/standins";
 import {
   createTeam,
+  sessionCookie,
   signIn,
   startTestApp,
   testConfig,
@@ -90,7 +91,7 @@ afterAll(async () => {
 describe("two app instances and a worker", () => {
   it("accept a session made by the other", async () => {
     const signedIn = await signIn(a.agent(), team.members.engineer);
-    const cookie = String(signedIn.headers["set-cookie"]).split(";")[0] ?? "";
+    const cookie = sessionCookie(signedIn)?.split(";")[0] ?? "";
     const me = await b.agent().get("/api/auth/me").set("Cookie", cookie);
     expect(me.status).toBe(200);
     expect(me.body.user.email).toBe(team.members.engineer.email);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startRillmark, type RunningRillmark } from "../../server/main";
-import { SESSION_COOKIE } from "../../server/auth/session";
 import { DEMO_PASSWORD } from "../../server/seed/demo";
+import { sessionCookieOf } from "../support/app";
 
 // The whole server as `npm start` runs it: migrations, demo seed, local mail server, HTTP.
 let running: RunningRillmark;
@@ -16,12 +16,6 @@ async function json(path: string, init: RequestInit = {}) {
     headers: { "Content-Type": "application/json", Origin: running.url, ...init.headers },
   });
   return { status: res.status, body: (await res.json()) as Record<string, unknown>, res };
-}
-
-/** The session cookie among those sign-in sets (it also marks the device). */
-function sessionCookieOf(res: Response): string {
-  const all = res.headers.getSetCookie().map((c) => c.split(";")[0] ?? "");
-  return all.find((c) => c.startsWith(`${SESSION_COOKIE}=`)) ?? "";
 }
 
 describe("startRillmark", () => {

@@ -220,6 +220,15 @@ export function sessionCookie(res: supertest.Response): string | undefined {
   return list.find((c) => c.startsWith(`${SESSION_COOKIE}=`));
 }
 
+/**
+ * "name=value" of the session cookie a fetch() sign-in answer set, ready for a Cookie header.
+ * Sign-in sets more than one cookie (the device cookie too): pick it by name.
+ */
+export function sessionCookieOf(res: Response): string {
+  const all = res.headers.getSetCookie().map((c) => c.split(";")[0] ?? "");
+  return all.find((c) => c.startsWith(`${SESSION_COOKIE}=`)) ?? "";
+}
+
 export type OutboxRow = typeof outboxMessages.$inferSelect;
 
 /** The newest message the fake SMTP server stored for `to`; waits for it (mail is async). */
