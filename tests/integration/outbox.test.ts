@@ -3,10 +3,11 @@ import { eq } from "drizzle-orm";
 import supertest from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { outboxMessages } from "../../server/db/schema";
-import { createMailer, TEAM_HEADER } from "../../server/mail/mailer";
+import { TEAM_HEADER } from "../../server/mail/mailer";
 import {
   createTeam,
   latestMailTo,
+  localMailer,
   signIn,
   startTestApp,
   tokenFromMail,
@@ -136,17 +137,7 @@ describe("outbox", () => {
 
   it("files a message under no team when the team header is not a team id", async () => {
     const to = uniqueEmail("outbox-header");
-    const mailer = createMailer(
-      {
-        host: "127.0.0.1",
-        port: t.smtp.port,
-        secure: false,
-        user: t.smtpCredentials.user,
-        pass: t.smtpCredentials.pass,
-        requireTls: false,
-      },
-      t.config.mailFrom,
-    );
+    const mailer = localMailer(t.smtp.port, t.smtpCredentials, t.config.mailFrom);
     try {
       await mailer.send(to, { subject: "s", text: "t", html: "<p>t</p>" }, { teamId: "x' or 1=1" });
     } finally {

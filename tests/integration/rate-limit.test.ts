@@ -6,11 +6,11 @@ import { createApp } from "../../server/app";
 import { createSessionStore } from "../../server/auth/session";
 import { connectDatabase } from "../../server/db/client";
 import { rateLimits } from "../../server/db/schema";
-import { createMailer } from "../../server/mail/mailer";
 import {
   createTeam,
   createUser,
   latestMailTo,
+  localMailer,
   startTestApp,
   testConfig,
   TEST_ORIGIN,
@@ -145,17 +145,7 @@ describe("sign-in limits", () => {
     const proxy = await startDbProxy(t.config.databaseUrl);
     const { pool, db } = connectDatabase(proxy.url, 2);
     const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
-    const mailer = createMailer(
-      {
-        host: "127.0.0.1",
-        port: t.smtp.port,
-        secure: false,
-        user: t.smtpCredentials.user,
-        pass: t.smtpCredentials.pass,
-        requireTls: false,
-      },
-      t.config.mailFrom,
-    );
+    const mailer = localMailer(t.smtp.port, t.smtpCredentials, t.config.mailFrom);
     cleanups.push(async () => {
       sessionStore.close();
       await mailer.close();

@@ -15,7 +15,7 @@ import { memberships, outboxMessages, teams, users } from "../../server/db/schem
 import { startFakeSmtp, type FakeSmtp, type SmtpCredentials } from "../../server/mail/fake-smtp";
 import { startJobQueue, type JobQueue } from "../../server/jobs/queue";
 import { startWorkers } from "../../server/jobs/workers";
-import { createMailer } from "../../server/mail/mailer";
+import { createMailer, type Mailer } from "../../server/mail/mailer";
 import { newStandInCredentials } from "../../server/standins";
 import { startStorage, type ObjectStore } from "../../server/storage";
 import { ROLES, type Role } from "../../shared/roles";
@@ -80,6 +80,21 @@ export function testConfig(overrides: Partial<AppConfig> = {}, tempDir?: string)
   };
 }
 
+/** A mailer that sends to a local stand-in SMTP server with its credentials. */
+export function localMailer(port: number, credentials: SmtpCredentials, from: string): Mailer {
+  return createMailer(
+    {
+      host: "127.0.0.1",
+      port,
+      secure: false,
+      user: credentials.user,
+      pass: credentials.pass,
+      requireTls: false,
+    },
+    from,
+  );
+}
+
 /**
  * The real app on the real test database, with its own SMTP and S3 stand-ins on random ports
  * (each with credentials of its own), its own job queue and its own temp folder (removed on
@@ -119,17 +134,7 @@ export async function startTestApp(
           config,
           sweep: false,
         });
-  const mailer = createMailer(
-    {
-      host: "127.0.0.1",
-      port: smtp.port,
-      secure: false,
-      user: smtpCredentials.user,
-      pass: smtpCredentials.pass,
-      requireTls: false,
-    },
-    config.mailFrom,
-  );
+  const mailer = localMailer(smtp.port, smtpCredentials, config.mailFrom);
   const sessionStore = createSessionStore(pool, { pruneIntervalSeconds: false });
   const app = createApp(config, { db, pool, sessionStore, mailer, store: storage.store, jobs });
   return {
