@@ -223,13 +223,18 @@ export function simplifyOutline(outline: CellOutline): SimplifiedOutline {
   });
   const change = Math.abs(areaOf(polygons) - outline.cells) / outline.cells;
   if (change <= MAX_AREA_CHANGE) return { polygons, simplified: true, areaChange: change };
-  const exact = outline.polygons.map((p) => ({
-    shell: cutSaddles(p.shell, outline.saddles, SADDLE_CUT_CELLS),
-    holes: p.holes.map((h) => cutSaddles(h, outline.saddles, SADDLE_CUT_CELLS)),
-  }));
+  const exact = exactOutline(outline);
   return {
     polygons: exact,
     simplified: false,
     areaChange: Math.abs(areaOf(exact) - outline.cells) / outline.cells,
   };
+}
+
+/** The cell-edge outline itself, its saddles cut by 1/1000 cell so that it is valid. */
+export function exactOutline(outline: CellOutline): { shell: Ring; holes: Ring[] }[] {
+  return outline.polygons.map((p) => ({
+    shell: cutSaddles(p.shell, outline.saddles, SADDLE_CUT_CELLS),
+    holes: p.holes.map((h) => cutSaddles(h, outline.saddles, SADDLE_CUT_CELLS)),
+  }));
 }

@@ -8,8 +8,9 @@
 import { describe, expect, it } from "vitest";
 import { cutSaddles, signedArea, traceOutline } from "./outline";
 import { simplifyOutline } from "./outline-simplify";
+import { randomCells } from "./test-grids";
 
-const W = 100;
+const W = 100; // randomCells' grid width
 const cellsOf = (pairs: [number, number][]) => Int32Array.from(pairs, ([c, r]) => r * W + c);
 
 describe("tracing along cell edges", () => {
@@ -67,34 +68,6 @@ describe("tracing along cell edges", () => {
     ]);
   });
 });
-
-/** A deterministic generator (mulberry32), so a failure repeats. */
-function random(seed: number) {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Random blobs: a growth from a seed cell, with some cells removed again (holes, necks). */
-export function randomCells(seed: number, size: number, count: number): Int32Array {
-  const next = random(seed);
-  const inside = new Set<number>([Math.floor(size / 2) * W + Math.floor(size / 2)]);
-  const frontier = [...inside];
-  while (inside.size < count) {
-    const from = frontier[Math.floor(next() * frontier.length)]!;
-    const step = [1, -1, W, -W, W + 1, W - 1, -W + 1, -W - 1][Math.floor(next() * 8)]!;
-    const to = from + step;
-    const [c, r] = [to % W, Math.floor(to / W)];
-    if (c < 1 || r < 1 || c >= size || r >= size || inside.has(to)) continue;
-    inside.add(to);
-    frontier.push(to);
-  }
-  return Int32Array.from(inside);
-}
 
 /** Distance from a point to the nearest raw outline edge (brute force). */
 function toEdges(rings: number[][], x: number, y: number): number {

@@ -99,3 +99,38 @@ export function makeGrid(
   }
   return { width, height, z, verticalToM: 1, georef: crs.georef(width, height) };
 }
+
+export const RANDOM_GRID_WIDTH = 100;
+
+/** A deterministic generator (mulberry32), so a failure repeats. */
+function random(seed: number) {
+  let a = seed;
+  return () => {
+    a = (a + 0x6d2b79f5) | 0;
+    let t = Math.imul(a ^ (a >>> 15), 1 | a);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/**
+ * Random blobs of `count` cells in a grid RANDOM_GRID_WIDTH wide: a growth from the middle of a
+ * `size` square by random steps to any of the eight neighbours, so they have one-cell necks,
+ * corner-only links and enclosed holes.
+ */
+export function randomCells(seed: number, size: number, count: number): Int32Array {
+  const W = RANDOM_GRID_WIDTH;
+  const next = random(seed);
+  const inside = new Set<number>([Math.floor(size / 2) * W + Math.floor(size / 2)]);
+  const frontier = [...inside];
+  while (inside.size < count) {
+    const from = frontier[Math.floor(next() * frontier.length)]!;
+    const step = [1, -1, W, -W, W + 1, W - 1, -W + 1, -W - 1][Math.floor(next() * 8)]!;
+    const to = from + step;
+    const [c, r] = [to % W, Math.floor(to / W)];
+    if (c < 1 || r < 1 || c >= size || r >= size || inside.has(to)) continue;
+    inside.add(to);
+    frontier.push(to);
+  }
+  return Int32Array.from(inside);
+}
