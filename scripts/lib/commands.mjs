@@ -6,6 +6,7 @@ import { binPath } from "./node-deps.mjs";
 import { ensureClientBuild } from "./client-build.mjs";
 import { exitZeroOnSignal, isStopping, spawnChild } from "./children.mjs";
 import { prepare, redactUrl, serverEnv } from "./setup.mjs";
+import { ensureGrass } from "./grass.mjs";
 import { savedCluster, stopCluster } from "./cluster.mjs";
 import { clearAutoStop, otherLeases, withClusterLock } from "./leases.mjs";
 
@@ -70,6 +71,8 @@ export async function bench(args) {
     database: "rillmark_bench",
     fresh: true,
   });
+  // The terrain rows run GRASS GIS side by side; without it they say why and go on.
+  await ensureGrass();
   const { done } = spawnChild(binPath("tsx"), ["bench/run.ts", ...args], {
     env: serverEnv(databaseUrl),
   });

@@ -20,6 +20,7 @@ import {
 } from "./log.mjs";
 import { binPath } from "./node-deps.mjs";
 import { installPackages } from "./apt.mjs";
+import { ensureGrass } from "./grass.mjs";
 import { ensureClientBuild } from "./client-build.mjs";
 import { isStopping, runCleanups, spawnChild } from "./children.mjs";
 import { prepare } from "./setup.mjs";
@@ -189,6 +190,7 @@ export async function test(args) {
     setup.chromium = steps.some((step) => step.id === "e2e")
       ? await timed("Chromium", ensureChromium)
       : process.env.CHROMIUM_PATH || "/usr/bin/chromium";
+    if (steps.some((step) => step.id.includes("unit"))) await timed("GRASS GIS", ensureGrass);
   } catch (error) {
     // CI still gets its closing line, last: the clean-up steps registered so far run first.
     if (isStopping()) return new Promise(() => {});
