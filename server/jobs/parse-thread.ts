@@ -1,8 +1,5 @@
-import { readFileSync } from "node:fs";
-import { createRequire } from "node:module";
-import path from "node:path";
-import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
+import { tsWorkerSource } from "./ts-worker";
 import {
   ReadError,
   type OnProgress,
@@ -40,26 +37,7 @@ export type ParseMessage =
     }
   | { type: "crash"; message: string };
 
-// The server runs TypeScript through tsx; a worker thread starts without it, so its first
-// module registers tsx's loader and then imports the worker's own .ts module.
-// tsx's ESM entry is taken from its package's export map (the CommonJS one cannot register
-// the ESM loader in a thread).
-function tsxEsmApi(): string {
-  const manifest = createRequire(import.meta.url).resolve("tsx/package.json");
-  const pkg = JSON.parse(readFileSync(manifest, "utf8")) as {
-    exports: Record<string, { import: { default: string } }>;
-  };
-  const entry = pkg.exports["./esm/api"]?.import.default;
-  if (!entry) throw new Error("tsx has no ESM API entry");
-  return pathToFileURL(path.join(path.dirname(manifest), entry)).href;
-}
-const tsxApi = tsxEsmApi();
-const workerModule = new URL("./parse-worker.ts", import.meta.url).href;
-const BOOTSTRAP = `
-const api = await import(${JSON.stringify(tsxApi)});
-api.register();
-await import(${JSON.stringify(workerModule)});
-`;
+const BOOTSTRAP = tsWorkerSource(new URL("./parse-worker.ts", import.meta.url));
 
 const READER_HEAP_MB = 640;
 
