@@ -62,10 +62,12 @@ export function flowLengths(
 ): Float32Array {
   const off = offsets(width);
   const len = new Float32Array(dir.length);
+  // Rows by a multiplication, not a division; the half keeps multiples of the width exact.
+  const perRow = 1 / width;
   for (let k = count - 1; k >= 0; k -= 1) {
     const c = order[k]!;
     const d = dir[c]!;
-    if (d !== 0) len[c] = len[c + off[d]!]! + steps[((c / width) | 0) * 9 + d]!;
+    if (d !== 0) len[c] = len[c + off[d]!]! + steps[(((c + 0.5) * perRow) | 0) * 9 + d]!;
   }
   return len;
 }

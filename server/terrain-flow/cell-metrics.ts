@@ -1,7 +1,6 @@
 /**
  * True cell sizes, per row, on the WGS84 ellipsoid: the distance from a cell's centre to its
- * east, north and north-east neighbours' centres (GeographicLib's inverse geodesic, Karney 2013)
- * and the cell's ground area (GeographicLib's PolygonArea of its four corners).
+ * east, north and north-east neighbours' centres, and the cell's ground area.
  *
  * One rule for every CRS: the centres are taken at the grid's middle column and converted to
  * longitude/latitude, so a geographic grid gets its per-row sizes (a degree of longitude shrinks
@@ -9,23 +8,17 @@
  * meridian), never degrees or projected units taken as metres. Along a row a UTM scale changes
  * by about x·w/R² (x the distance from the central meridian, w the grid's half-width): under
  * 1e-4 for a 20 km grid 300 km off the meridian, well inside any DEM's accuracy.
+ *
+ * Distances are geodesics (shared/geo: the ellipsoid's radii of curvature below 0.001°, within
+ * nanometres of GeographicLib, GeographicLib beyond). A cell's area is its east–west width at
+ * its centre times its north–south height: both grids in use keep their axes square on the
+ * ground (meridians cross parallels at right angles; UTM and Web Mercator are conformal), and
+ * over a cell the width changes linearly to first order, so the product is exact to order
+ * (cell ÷ earth radius)², a part in 10¹² for a 10 m cell.
  */
-import geodesic from "geographiclib-geodesic";
+import { geodesicDistanceM } from "../../shared/geo/geodesic";
 import { gridProjection } from "./georef";
 import type { CellMetrics, GridGeoref } from "./types";
-
-const WGS84 = geodesic.Geodesic.WGS84;
-const DISTANCE = geodesic.Geodesic.DISTANCE;
-
-function distanceM(a: readonly [number, number], b: readonly [number, number]): number {
-  return WGS84.Inverse(a[1], a[0], b[1], b[0], DISTANCE).s12 ?? Number.NaN;
-}
-
-function quadAreaM2(corners: readonly (readonly [number, number])[]): number {
-  const polygon = WGS84.Polygon(false);
-  for (const [lon, lat] of corners) polygon.AddPoint(lat, lon);
-  return Math.abs(polygon.Compute(false, true).area ?? Number.NaN);
-}
 
 export function cellMetrics(georef: GridGeoref, width: number, height: number): CellMetrics {
   const projection = gridProjection(georef);
@@ -37,14 +30,22 @@ export function cellMetrics(georef: GridGeoref, width: number, height: number): 
   // Rows −1 … height: the neighbours of the outer rows are measured too (never used as steps,
   // but they keep every table full of real numbers).
   const centre = (du: number, row: number) => projection.lonLatAt(u + du, row + 0.5);
+  let above = centre(0, -1);
+  let aboveEast = centre(1, -1);
   for (let row = 0; row <= height; row += 1) {
     const here = centre(0, row);
-    northM[row] = distanceM(here, centre(0, row - 1));
-    diagNorthM[row] = distanceM(here, centre(1, row - 1));
-    if (row === height) break;
-    eastM[row] = distanceM(here, centre(1, row));
-    const corner = (du: number, dv: number) => projection.lonLatAt(u - 0.5 + du, row + dv);
-    areaM2[row] = quadAreaM2([corner(0, 0), corner(0, 1), corner(1, 1), corner(1, 0)]);
+    const east = centre(1, row);
+    northM[row] = geodesicDistanceM(here, above);
+    diagNorthM[row] = geodesicDistanceM(here, aboveEast);
+    if (row < height) {
+      eastM[row] = geodesicDistanceM(here, east);
+      const heightM = geodesicDistanceM(
+        projection.lonLatAt(u, row),
+        projection.lonLatAt(u, row + 1),
+      );
+      areaM2[row] = eastM[row]! * heightM;
+    }
+    [above, aboveEast] = [here, east];
   }
   for (const table of [eastM, northM, diagNorthM, areaM2]) {
     if (!table.every((v) => Number.isFinite(v) && v > 0)) {

@@ -16,14 +16,17 @@
  */
 import { INFLOW_DONE } from "./accumulate";
 import { D_COL, D_ROW, offsets } from "./d8";
-import { COND_FILLED, COND_FLAT, NODATA_MASK } from "./types";
+import { COND_FILLED, COND_FLAT, NODATA_MASK, STATE_DONE, STATE_EDGE, STATE_QUEUED } from "./types";
 
 /** best-code value meaning "out of the grid". */
 const OUT = 9;
+/** cond bits that outlive the flood. */
+const KEEP = ~(STATE_DONE | STATE_QUEUED | STATE_EDGE) & 0xff;
 
 /**
- * Turns the reached-from codes in `dir` into D8 directions and counts each cell's donors into
- * `inflow` (zeroed; INFLOW_DONE on nodata, for accumulate.ts); returns the flat cells marked.
+ * Turns the reached-from codes in `dir` into D8 directions, counts each cell's donors into
+ * `inflow` (zeroed; INFLOW_DONE on nodata, for accumulate.ts) and clears the flood's STATE_*
+ * bits from `cond`; returns the flat cells marked.
  */
 export function d8Directions(
   z: Float32Array,
@@ -51,44 +54,118 @@ export function d8Directions(
   const beyond = (c: number, row: number, col: number, k: number) =>
     z[c]! + D_COL[k]! * rise(c, row, col, 1, 5) + D_ROW[k]! * rise(c, row, col, 7, 3);
 
+  /** The steepest way down from a cell on the edge or beside nodata (OUT: out of the grid). */
+  const bestAtBorder = (c: number, row: number, col: number) => {
+    const zc = z[c]!;
+    const base = row * 9;
+    let best = 0;
+    let bestSlope = 0;
+    for (let k = 1; k <= 8; k += 1) {
+      let zn: number;
+      let out = false;
+      if (inside(row + D_ROW[k]!, col + D_COL[k]!)) {
+        zn = z[c + off[k]!]!;
+        if (Number.isNaN(zn)) {
+          zn = beyond(c, row, col, k);
+          out = true;
+        }
+      } else {
+        zn = beyond(c, row, col, k);
+        out = true;
+      }
+      if (zn < zc) {
+        const slope = (zc - zn) * inv[base + k]!;
+        if (slope > bestSlope) {
+          bestSlope = slope;
+          best = out ? OUT : k;
+        }
+      }
+    }
+    return best;
+  };
+
   for (let row = 0; row < height; row += 1) {
     const base = row * 9;
-    const innerRow = row > 0 && row < height - 1;
+    // West and south-west step like east and south-east, north-west like north-east.
+    const [iE, iNE, iN, iS, iSE] = [
+      inv[base + 1]!,
+      inv[base + 2]!,
+      inv[base + 3]!,
+      inv[base + 7]!,
+      inv[base + 8]!,
+    ];
+    const edgeRow = row === 0 || row === height - 1;
     for (let col = 0, c = row * width; col < width; col += 1, c += 1) {
-      if ((cond[c]! & NODATA_MASK) !== 0) {
+      // The flood's working bits go here, in the same pass.
+      const kept = cond[c]! & KEEP;
+      cond[c] = kept;
+      if ((kept & NODATA_MASK) !== 0) {
         dir[c] = 0;
         inflow[c] = INFLOW_DONE;
         continue;
       }
-      const zc = z[c]!;
-      let best = 0;
-      let bestSlope = 0;
-      const inner = innerRow && col > 0 && col < width - 1;
-      for (let k = 1; k <= 8; k += 1) {
-        let zn: number;
-        let out = false;
-        if (inner || inside(row + D_ROW[k]!, col + D_COL[k]!)) {
-          zn = z[c + off[k]!]!;
-          if (zn !== zn) {
-            zn = beyond(c, row, col, k); // nodata
-            out = true;
+      let best: number;
+      if (edgeRow || col === 0 || col === width - 1) best = bestAtBorder(c, row, col);
+      else {
+        // Inside the grid, unrolled: the eight drops ÷ step lengths, first steepest wins.
+        const zc = z[c]!;
+        const ze = z[c + 1]!;
+        const zne = z[c - width + 1]!;
+        const zn = z[c - width]!;
+        const znw = z[c - width - 1]!;
+        const zw = z[c - 1]!;
+        const zsw = z[c + width - 1]!;
+        const zs = z[c + width]!;
+        const zse = z[c + width + 1]!;
+        const sum = ze + zne + zn + znw + zw + zsw + zs + zse;
+        if (sum !== sum)
+          best = bestAtBorder(c, row, col); // beside nodata
+        else {
+          best = 0;
+          let top = 0;
+          let t = (zc - ze) * iE;
+          if (t > top) {
+            top = t;
+            best = 1;
           }
-        } else {
-          zn = beyond(c, row, col, k);
-          out = true;
-        }
-        if (zn < zc) {
-          const slope = (zc - zn) * inv[base + k]!;
-          if (slope > bestSlope) {
-            bestSlope = slope;
-            best = out ? OUT : k;
+          t = (zc - zne) * iNE;
+          if (t > top) {
+            top = t;
+            best = 2;
           }
+          t = (zc - zn) * iN;
+          if (t > top) {
+            top = t;
+            best = 3;
+          }
+          t = (zc - znw) * iNE;
+          if (t > top) {
+            top = t;
+            best = 4;
+          }
+          t = (zc - zw) * iE;
+          if (t > top) {
+            top = t;
+            best = 5;
+          }
+          t = (zc - zsw) * iSE;
+          if (t > top) {
+            top = t;
+            best = 6;
+          }
+          t = (zc - zs) * iS;
+          if (t > top) {
+            top = t;
+            best = 7;
+          }
+          t = (zc - zse) * iSE;
+          if (t > top) best = 8;
         }
       }
       if (best === OUT) dir[c] = 0;
       else if (best !== 0) dir[c] = best;
-      else if (dir[c] !== 0 && (cond[c]! & COND_FILLED) === 0) {
-        cond[c] = cond[c]! | COND_FLAT;
+      else if (dir[c] !== 0 && (kept & COND_FILLED) === 0) {
+        cond[c] = kept | COND_FLAT;
         flatCells += 1;
       }
       const d = dir[c]!;

@@ -14,7 +14,7 @@ import { cellMetrics } from "./cell-metrics";
 import { stepTable } from "./d8";
 import { d8Directions } from "./directions";
 import { fillDepressions } from "./flood";
-import { type ElevationGrid, type RoutedGrid, STATE_DONE, STATE_EDGE, STATE_QUEUED } from "./types";
+import type { ElevationGrid, RoutedGrid } from "./types";
 
 export interface RouteOptions {
   /** "fill" (default) or "breach": least-cost breaching first, then filling what is left. */
@@ -39,8 +39,6 @@ export function conditionAndRoute(grid: ElevationGrid, options: RouteOptions = {
   }
   progress(0.2, "filling depressions");
   const fill = fillDepressions(z, width, height, dir, cond);
-  const clear = ~(STATE_DONE | STATE_QUEUED | STATE_EDGE) & 0xff;
-  for (let c = 0; c < cond.length; c += 1) cond[c] = cond[c]! & clear;
   progress(0.45, "finding flow directions");
   const inflow = new Uint8Array(width * height);
   const flatCells = d8Directions(z, width, height, steps, dir, cond, inflow);
