@@ -110,7 +110,10 @@ export function delineate(
     const snapped = projection.lonLatAt(outlet - row * routed.width + 0.5, row + 0.5);
     const requested = outlets[k]!;
     let cellsAreaM2 = 0;
-    for (const c of basin) cellsAreaM2 += routed.metrics.areaM2[(c / routed.width) | 0]!;
+    const perRow = 1 / routed.width;
+    for (let k = 0; k < basin.length; k += 1) {
+      cellsAreaM2 += routed.metrics.areaM2[((basin[k]! + 0.5) * perRow) | 0]!;
+    }
     return {
       outlet: {
         requested: [requested[0], requested[1]],

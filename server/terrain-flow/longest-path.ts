@@ -50,10 +50,19 @@ export function longestFlowPath(
     const row = (c / width) | 0;
     return d === 0 ? metrics.northM[row]! / 2 : steps[row * 9 + d]! / 2;
   };
+  // The farthest reach is a cell's flow length plus at most half its longest step, so only the
+  // cells within that half step of the longest flow length seen so far are weighed.
+  let maxHalf = 0;
+  for (let k = 0; k < steps.length; k += 1) if (steps[k]! / 2 > maxHalf) maxHalf = steps[k]! / 2;
+  let longest = -Infinity;
   let start = outlet;
   let best = -Infinity;
-  for (const c of basin) {
-    const reach = flowLenM[c]! + half(c);
+  for (let k = 0; k < basin.length; k += 1) {
+    const c = basin[k]!;
+    const len = flowLenM[c]!;
+    if (len > longest) longest = len;
+    if (len < longest - maxHalf) continue;
+    const reach = len + half(c);
     if (reach > best || (reach === best && c < start)) [best, start] = [reach, c];
   }
   const cells: number[] = [];

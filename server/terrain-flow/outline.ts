@@ -48,9 +48,13 @@ export function signedArea(ring: readonly number[]): number {
 
 /** Traces the outline of `cells` (indices into a grid `width` wide). */
 export function traceOutline(cells: Int32Array, width: number): CellOutline {
+  const n = cells.length;
+  // Rows by a multiplication, not a division; the half keeps multiples of the width exact.
+  const perRow = 1 / width;
   let [minC, minR, maxC, maxR] = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const cell of cells) {
-    const r = Math.floor(cell / width);
+  for (let k = 0; k < n; k += 1) {
+    const cell = cells[k]!;
+    const r = ((cell + 0.5) * perRow) | 0;
     const c = cell - r * width;
     if (c < minC) minC = c;
     if (c > maxC) maxC = c;
@@ -60,36 +64,43 @@ export function traceOutline(cells: Int32Array, width: number): CellOutline {
   // A one-cell margin so that every inside cell has four neighbours in the mask.
   const mw = maxC - minC + 3;
   const mh = maxR - minR + 3;
+  // Mask position of a cell: its row and column less the box's, plus the margin.
+  const shift = (1 - minR) * mw + 1 - minC;
+  const maskAt = (cell: number) => {
+    const r = ((cell + 0.5) * perRow) | 0;
+    return r * mw + (cell - r * width) + shift;
+  };
   const mask = new Uint8Array(mw * mh);
-  for (const cell of cells) {
-    const r = Math.floor(cell / width);
-    mask[(r - minR + 1) * mw + (cell - r * width - minC + 1)] = 1;
-  }
+  for (let k = 0; k < n; k += 1) mask[maskAt(cells[k]!)] = 1;
   const vw = mw + 1;
   const out = new Uint8Array(vw * (mh + 1));
+  // Vertices that start an edge, so the search for rings visits only the boundary.
+  const starts: number[] = [];
   const mark = (vertex: number, bit: number) => {
+    if (out[vertex] === 0) starts.push(vertex);
     out[vertex] = out[vertex]! | bit;
   };
-  for (let r = 1; r < mh - 1; r += 1) {
-    for (let c = 1; c < mw - 1; c += 1) {
-      const at = r * mw + c;
-      if (mask[at] === 0) continue;
-      if (mask[at + mw] === 0) mark((r + 1) * vw + c, EAST); // bottom edge
-      if (mask[at + 1] === 0) mark((r + 1) * vw + c + 1, NORTH); // right edge
-      if (mask[at - mw] === 0) mark(r * vw + c + 1, WEST); // top edge
-      if (mask[at - 1] === 0) mark(r * vw + c, SOUTH); // left edge
-    }
+  for (let k = 0; k < n; k += 1) {
+    const at = maskAt(cells[k]!);
+    // Vertex (c, r) of mask cell (c, r) is at r·vw + c = at + r: one more per row above.
+    const v = at + (((at + 0.5) / mw) | 0);
+    if (mask[at + mw] === 0) mark(v + vw, EAST); // bottom edge
+    if (mask[at + 1] === 0) mark(v + vw + 1, NORTH); // right edge
+    if (mask[at - mw] === 0) mark(v + 1, WEST); // top edge
+    if (mask[at - 1] === 0) mark(v, SOUTH); // left edge
   }
   const rings: { ring: Ring; leftCell: number }[] = [];
   const saddles = new Set<string>();
   const [i0, j0] = [minC - 1, minR - 1]; // mask (0, 0) in grid vertex coordinates
-  for (let v = 0; v < out.length; v += 1) {
+  // In vertex order, so the first ring found is the same whatever the cells' order.
+  starts.sort((a, b) => a - b);
+  for (const v of starts) {
     while (out[v] !== 0) {
       const first = out[v]! & -out[v]!;
       rings.push(traceRing(out, vw, v, first, mask, mw, i0, j0, saddles));
     }
   }
-  return { polygons: group(rings, mask, mw), saddles, cells: cells.length };
+  return { polygons: group(rings, mask, mw), saddles, cells: n };
 }
 
 function traceRing(

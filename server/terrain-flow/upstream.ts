@@ -49,19 +49,35 @@ export function upstreamCells(
   const cells = new Int32Array(acc[outlet]!);
   cells[0] = outlet;
   let tail = 1;
+  const checkStops = stops.size > 0;
+  // Codes a neighbour must have to drain into the cell, by the neighbour's side.
+  const [toW, toSW, toS, toSE, toE, toNE, toN, toNW] = [5, 6, 7, 8, 1, 2, 3, 4];
+  const take = (nb: number) => {
+    if (!checkStops || !stops.has(nb)) cells[tail++] = nb;
+  };
+  const perRow = 1 / width;
   for (let head = 0; head < tail; head += 1) {
     const c = cells[head]!;
-    const row = (c / width) | 0;
+    const row = ((c + 0.5) * perRow) | 0;
     const col = c - row * width;
-    const inner = row > 0 && col > 0 && row < height - 1 && col < width - 1;
+    if (row > 0 && col > 0 && row < height - 1 && col < width - 1) {
+      // Inside the grid, unrolled: the east neighbour drains in if it points west, and so on.
+      if (dir[c + 1] === toW) take(c + 1);
+      if (dir[c - width + 1] === toSW) take(c - width + 1);
+      if (dir[c - width] === toS) take(c - width);
+      if (dir[c - width - 1] === toSE) take(c - width - 1);
+      if (dir[c - 1] === toE) take(c - 1);
+      if (dir[c + width - 1] === toNE) take(c + width - 1);
+      if (dir[c + width] === toN) take(c + width);
+      if (dir[c + width + 1] === toNW) take(c + width + 1);
+      continue;
+    }
     for (let k = 1; k <= 8; k += 1) {
-      if (!inner) {
-        const r = row + D_ROW[k]!;
-        const q = col + D_COL[k]!;
-        if (r < 0 || q < 0 || r >= height || q >= width) continue;
-      }
+      const r = row + D_ROW[k]!;
+      const q = col + D_COL[k]!;
+      if (r < 0 || q < 0 || r >= height || q >= width) continue;
       const nb = c + off[k]!;
-      if (dir[nb] === OPPOSITE[k] && (stops.size === 0 || !stops.has(nb))) cells[tail++] = nb;
+      if (dir[nb] === OPPOSITE[k]) take(nb);
     }
   }
   return cells.subarray(0, tail);
