@@ -12,6 +12,7 @@ import { run as tiles } from "./tiles";
 import { run as mapDesk } from "./map";
 import { run as load } from "./load";
 import { run as accounts } from "./auth";
+import { run as terrainFlow } from "./terrain-flow";
 import { formatTable, type BenchRow } from "./table";
 
 const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
@@ -25,6 +26,7 @@ const suites: Array<{ name: string; run: () => Promise<BenchRow[]> }> = [
   { name: "map desk", run: mapDesk },
   { name: "several processes", run: load },
   { name: "accounts", run: accounts },
+  { name: "terrain flow", run: terrainFlow },
 ];
 
 const rows: Array<BenchRow & { suite: string }> = [];

@@ -11,6 +11,7 @@ import { tempDir, writeTemp } from "../geodata/readers/test-support";
 import { inspectTerrain } from "../geodata/terrain";
 import { MAX_CELLS, TerrainFlowError } from "./errors";
 import { readElevationGrid } from "./read-terrain";
+import { oversizedTiff } from "./test-grids";
 
 const DEMO = new URL("../../demo-geo/out/terrain.tif", import.meta.url).pathname;
 const georeference = {
@@ -69,22 +70,7 @@ describe("reading a terrain grid whole", () => {
   });
 
   it("refuses a header of 20,000 × 10,000 cells before reading any", async () => {
-    const bytes = geoTiffBytes({
-      width: 16,
-      height: 16,
-      georeference,
-      tileSize: 16,
-      values: () => 1,
-    });
-    // Claim a far larger raster in ImageWidth (256) and ImageLength (257), both LONG.
-    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-    const ifd = view.getUint32(4, true);
-    for (let k = 0; k < view.getUint16(ifd, true); k += 1) {
-      const entry = ifd + 2 + 12 * k;
-      const tag = view.getUint16(entry, true);
-      if (tag === 256) view.setUint32(entry + 8, 20_000, true);
-      if (tag === 257) view.setUint32(entry + 8, 10_000, true);
-    }
+    const bytes = oversizedTiff(20_000, 10_000);
     const path = writeTemp(tempDir(), "huge.tif", bytes);
     const before = process.memoryUsage().arrayBuffers;
     const error = await readElevationGrid(path, "m", "huge.tif").catch((e: unknown) => e);

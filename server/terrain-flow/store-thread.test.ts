@@ -5,12 +5,12 @@
  */
 import { describe, expect, it } from "vitest";
 import { ReadError } from "../geodata/readers/types";
-import { geoTiffBytes } from "../geodata/writers";
 import { tempDir, writeTemp } from "../geodata/readers/test-support";
 import { TerrainFlowError } from "./errors";
 import { readElevationGrid } from "./read-terrain";
 import { conditionAndRoute } from "./route";
 import { decodeRouted, encodeRouted, StoredGridError } from "./store-format";
+import { oversizedTiff } from "./test-grids";
 import { routeTerrainInThread } from "./thread";
 
 const DEMO = new URL("../../demo-geo/out/terrain.tif", import.meta.url).pathname;
@@ -42,19 +42,7 @@ describe("routing in a worker thread", { timeout: 60_000 }, () => {
     }).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ReadError);
     expect(error).toMatchObject({ code: "terrain-unreadable" });
-    const bytes = geoTiffBytes({
-      width: 16,
-      height: 16,
-      georeference: { epsg: 32614, originX: 5e5, originY: 4.2e6, pixelSizeX: 1, pixelSizeY: 1 },
-      values: () => 1,
-    });
-    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-    const ifd = view.getUint32(4, true);
-    for (let k = 0; k < view.getUint16(ifd, true); k += 1) {
-      const entry = ifd + 2 + 12 * k;
-      if (view.getUint16(entry, true) === 256) view.setUint32(entry + 8, 12_000, true);
-      if (view.getUint16(entry, true) === 257) view.setUint32(entry + 8, 12_000, true);
-    }
+    const bytes = oversizedTiff(12_000, 12_000);
     const huge = await routeTerrainInThread({
       filePath: writeTemp(tempDir(), "huge.tif", bytes),
       verticalUnit: "m",

@@ -10,7 +10,7 @@ import { cellMetrics } from "./cell-metrics";
 import { D_COL, D_ROW, offsets, stepTable } from "./d8";
 import { conditionAndRoute } from "./route";
 import { cellsForArea, streamLinesGeoJSON, streamLinks } from "./streams";
-import { makeGrid, UTM } from "./test-grids";
+import { makeGrid, UTM, valleysElevation } from "./test-grids";
 import { NODATA_MASK, type RoutedGrid } from "./types";
 
 const [S, SE, SW, W] = [7, 8, 6, 5];
@@ -140,16 +140,7 @@ describe("a terrain of valleys", () => {
   it("orders every stream cell as the recursive definition does", () => {
     const [w, h, cell] = [120, 120, 10 / 0.9996];
     const routed = conditionAndRoute(
-      makeGrid(UTM, w, h, (c, r) => {
-        const [x, y] = [c * cell, (h - 1 - r) * cell];
-        const wave = (period: number) => 1 - Math.cos((2 * Math.PI * x) / period);
-        return (
-          0.04 * y +
-          6 * wave(400) +
-          2.5 * wave(90) * (1 + 0.4 * Math.sin((2 * Math.PI * y) / 260)) +
-          0.3 * Math.sin(x * 0.37 + y * 0.11)
-        );
-      }),
+      makeGrid(UTM, w, h, (c, r) => valleysElevation(c * cell, (h - 1 - r) * cell, 0.3)),
     );
     const threshold = cellsForArea(routed, 20 * (10 / 0.9996) ** 2);
     expect(threshold).toBe(20);

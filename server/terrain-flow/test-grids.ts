@@ -3,6 +3,7 @@
  * sizes from closed-form ellipsoid formulas (independent of GeographicLib, which the engine
  * uses). WGS84: a = 6378137 m, f = 1/298.257223563 (NIMA TR8350.2).
  */
+import { geoTiffBytes } from "../geodata/writers";
 import type { ElevationGrid, GridGeoref } from "./types";
 
 const A = 6378137;
@@ -133,4 +134,49 @@ export function randomCells(seed: number, size: number, count: number): Int32Arr
     frontier.push(to);
   }
   return Int32Array.from(inside);
+}
+
+/**
+ * An invented terrain of valleys, metres at (x east, y north) in metres: a slope falling 4 % to
+ * the south with valleys 400 m and 90 m apart, the smaller ones winding (no depressions, no
+ * flats); `ripple` adds a small cross-wave.
+ */
+export function valleysElevation(x: number, y: number, ripple = 0): number {
+  const wave = (period: number) => 1 - Math.cos((2 * Math.PI * x) / period);
+  return (
+    0.04 * y +
+    6 * wave(400) +
+    2.5 * wave(90) * (1 + 0.4 * Math.sin((2 * Math.PI * y) / 260)) +
+    0.002 * x +
+    ripple * Math.sin(x * 0.37 + y * 0.11)
+  );
+}
+
+/**
+ * A small valid GeoTIFF whose header claims `width` × `height` cells (ImageWidth and
+ * ImageLength, tags 256 and 257, patched): a terrain too large to compute, without writing one.
+ */
+export function oversizedTiff(width: number, height: number): Uint8Array {
+  const bytes = geoTiffBytes({
+    width: 16,
+    height: 16,
+    georeference: {
+      epsg: 32614,
+      originX: 500_000,
+      originY: 4_200_000,
+      pixelSizeX: 5,
+      pixelSizeY: 5,
+    },
+    tileSize: 16,
+    values: () => 1,
+  });
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const ifd = view.getUint32(4, true);
+  for (let k = 0; k < view.getUint16(ifd, true); k += 1) {
+    const entry = ifd + 2 + 12 * k;
+    const tag = view.getUint16(entry, true);
+    if (tag === 256) view.setUint32(entry + 8, width, true);
+    if (tag === 257) view.setUint32(entry + 8, height, true);
+  }
+  return bytes;
 }

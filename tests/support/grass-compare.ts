@@ -11,13 +11,14 @@ import { gridProjection } from "../../server/terrain-flow/georef";
 import { readElevationGrid } from "../../server/terrain-flow/read-terrain";
 import { conditionAndRoute } from "../../server/terrain-flow/route";
 import type { RoutedGrid } from "../../server/terrain-flow/types";
+import { valleysElevation } from "../../server/terrain-flow/test-grids";
 import { snapOutlet, upstreamCells } from "../../server/terrain-flow/upstream";
 import { grassReference } from "./grass";
 
 export const DEMO_TERRAIN = new URL("../../demo-geo/out/terrain.tif", import.meta.url).pathname;
 const CHANNEL = new URL("../../demo-geo/out/channel.geojson", import.meta.url).pathname;
 
-/** Valleys 400 m and 90 m apart on a slope falling south (no depressions, no flats). */
+/** test-grids.ts's valleys as a 300 × 300 GeoTIFF of 5 m cells in UTM 14N. */
 export function valleysTif(): string {
   const [w, h, cell] = [300, 300, 5];
   const bytes = geoTiffBytes({
@@ -30,16 +31,7 @@ export function valleysTif(): string {
       pixelSizeX: cell,
       pixelSizeY: cell,
     },
-    values: (c, r) => {
-      const [x, y] = [c * cell, (h - 1 - r) * cell];
-      const wave = (period: number) => 1 - Math.cos((2 * Math.PI * x) / period);
-      return (
-        0.04 * y +
-        6 * wave(400) +
-        2.5 * wave(90) * (1 + 0.4 * Math.sin((2 * Math.PI * y) / 260)) +
-        0.002 * x
-      );
-    },
+    values: (c, r) => valleysElevation(c * cell, (h - 1 - r) * cell),
   });
   return writeTemp(tempDir(), "valleys.tif", bytes);
 }

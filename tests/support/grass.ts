@@ -74,7 +74,8 @@ export async function grassReference(
       // Timed alone; its peak memory read from /proc while it runs (no GNU time needed).
       "start=$(date +%s.%N); peak=0",
       "r.watershed -s elevation=dem accumulation=acc drainage=dir --quiet & pid=$!",
-      'while kill -0 $pid 2>/dev/null; do hwm=$(awk \'/VmHWM/ {print $2}\' /proc/$pid/status 2>/dev/null || true); [ -n "$hwm" ] && [ "$hwm" -gt "$peak" ] && peak=$hwm; sleep 0.02; done',
+      // r.watershed runs its worker (r.watershed.ram) as a child: the peak of either counts.
+      'while kill -0 $pid 2>/dev/null; do for p in $pid $(cat /proc/$pid/task/*/children 2>/dev/null); do hwm=$(awk \'/VmHWM/ {print $2}\' /proc/$p/status 2>/dev/null || true); [ -n "$hwm" ] && [ "$hwm" -gt "$peak" ] && peak=$hwm; done; sleep 0.02; done',
       "wait $pid",
       'echo "WATERSHED $(awk "BEGIN { print $(date +%s.%N) - $start }") $peak"',
       `r.out.gdal input=acc output=${accTif} type=Float64 format=GTiff -c --quiet`,
