@@ -8,6 +8,8 @@
 import { describe, expect, it } from "vitest";
 import { D_COL, D_ROW } from "./d8";
 import { fillDepressions } from "./flood";
+import { conditionAndRoute } from "./route";
+import { makeGrid, UTM } from "./test-grids";
 import { COND_FILLED } from "./types";
 
 function random(seed: number) {
@@ -79,4 +81,25 @@ describe("depression filling against the textbook Priority-Flood", () => {
       expect(raised.length).toBeGreaterThan(10);
     },
   );
+});
+
+describe("every cell drains", () => {
+  it.each([7, 8, 9])("random terrain %i: the exits take every data cell's water", (seed) => {
+    const next = random(seed);
+    const [w, h] = [50, 40];
+    const grid = makeGrid(UTM, w, h, (c, r) =>
+      next() < 0.05
+        ? Number.NaN
+        : next() < 0.3
+          ? 7
+          : 0.05 * ((c - 25) ** 2 + (r - 20) ** 2) * next(),
+    );
+    const data = grid.z.filter((v) => !Number.isNaN(v)).length;
+    const routed = conditionAndRoute(grid);
+    let drained = 0;
+    for (let k = 0; k < w * h; k += 1) {
+      if (routed.dir[k] === 0) drained += routed.acc[k]!;
+    }
+    expect(drained).toBe(data);
+  });
 });
